@@ -1,0 +1,1 @@
+"""ntoracle: a reference oracle for testing number-theory software."""

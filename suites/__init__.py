@@ -1,0 +1,1 @@
+"""YAML suites shipped with ntoracle."""
