@@ -1,0 +1,1 @@
+"""placeholder package, filled by its own module work."""
