@@ -325,7 +325,10 @@ def _is_prime(n) -> Answer:
     n = require_int("n", n, minimum=0)
     from .exact import primality
 
-    return Answer("is_prime", (n,), primality.is_prime(n), primality.verdict(n))
+    prime = primality.is_prime(n)
+    # A "composite" answer is always proven (a failed strong or Lucas test is a
+    # witness); only a "prime" answer above the bound is merely probable.
+    return Answer("is_prime", (n,), prime, primality.verdict(n) if prime else "deterministic")
 
 
 def _next_prime(n) -> Answer:

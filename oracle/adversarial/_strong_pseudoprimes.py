@@ -1,0 +1,193 @@
+"""Strong pseudoprimes: odd composites that pass the Miller--Rabin test to given bases.
+
+Write ``n - 1 = d * 2**s`` with ``d`` odd.  A composite ``n`` is a *strong
+pseudoprime to base a* when ``a**d = 1 (mod n)`` or ``a**(d * 2**r) = -1
+(mod n)`` for some ``0 <= r < s`` (Pomerance, Selfridge and Wagstaff 1980,
+Math. Comp. 35).  They are the inputs on which a Miller--Rabin routine with a
+fixed, too small base set answers "prime" for a composite.
+
+Three sources here:
+
+* published tables (each constant names its OEIS entry);
+* :func:`strong_pseudoprimes_below` -- exhaustive search with the defining test;
+* :func:`constructed_strong_pseudoprimes` -- large ones built for any chosen
+  set of prime bases, by the method of F. Arnault (1995, "Constructing
+  Carmichael numbers which are strong pseudoprimes to several bases",
+  J. Symbolic Comput. 20), in the three-factor form
+  ``n = p1 * p2 * p3`` with ``p_i = k_i (p1 - 1) + 1`` and ``k1 = 1``.
+
+The construction rests on Euler's criterion.  If every ``p_i`` is a prime
+``= 3 (mod 4)`` with Legendre symbol ``(a/p_i) = -1``, and ``p_i - 1`` divides
+``n - 1``, then ``n = 3 (mod 4)``, ``d = (n - 1)/2`` is odd and ``d / ((p_i -
+1)/2)`` is odd, so ``a**d = (a**((p_i - 1)/2))**odd = -1 (mod p_i)`` for each
+``i``, hence ``a**d = -1 (mod n)``: ``n`` passes the strong test to base
+``a``.  The symbol ``(a/p)`` depends only on ``p mod 4a`` (quadratic
+reciprocity), so the conditions are congruences on ``p1``; ``p_i - 1 | n - 1``
+reduces to ``k2 | 1 + k3 p1`` and ``k3 | 1 + k2 p1``.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+import gmpy2
+
+from .._errors import InvalidInputError
+from .._integers import require_int
+from ..exact.primality import is_prime, next_prime
+
+__all__ = [
+    "STRONG_PSEUDOPRIMES_BASE_2",
+    "LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES",
+    "STRONG_PSEUDOPRIMES_BASES_2_3_5_7",
+    "strong_pseudoprimes_below",
+    "constructed_strong_pseudoprimes",
+]
+
+#: OEIS A001262, strong pseudoprimes to base 2, first 12 terms (from memory;
+#: the tests re-derive them by exhaustive search).
+STRONG_PSEUDOPRIMES_BASE_2 = (2047, 3277, 4033, 4681, 8321, 15841, 29341,
+                              42799, 49141, 52633, 65281, 74665)
+
+#: OEIS A014233, the least odd composite that is a strong pseudoprime to all
+#: of the first k prime bases, k = 1..13 (k = 12, 13: Sorenson and Webster
+#: 2017, Math. Comp. 86).
+LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES = (
+    2047, 1373653, 25326001, 3215031751, 2152302898747, 3474749660383,
+    341550071728321, 341550071728321, 3825123056546413051,
+    3825123056546413051, 3825123056546413051, 318665857834031151167461,
+    3317044064679887385961981)
+
+#: OEIS A074773, strong pseudoprimes to bases 2, 3, 5 and 7, first 12 terms
+#: (as quoted in public test code; each is re-verified by the strong test in
+#: the tests, but completeness between the terms is not re-searched).
+STRONG_PSEUDOPRIMES_BASES_2_3_5_7 = (
+    3215031751, 118670087467, 307768373641, 315962312077, 354864744877,
+    457453568161, 528929554561, 546348519181, 602248359169, 1362242655901,
+    1871186716981, 2152302898747)
+
+#: The exhaustive search refuses limits above this (a Python loop).
+_SEARCH_LIMIT = 10**8
+
+
+def strong_pseudoprimes_below(limit: int, bases: Sequence[int] = (2,)) -> list[int]:
+    """All odd composites ``n < limit`` that are strong pseudoprimes to every base.
+
+    Exhaustive search with the defining test; ``limit <= 10**8``.  A number
+    sharing a factor with a base is a pseudoprime to no such base and is
+    skipped.
+    """
+    limit = require_int("limit", limit, minimum=0, maximum=_SEARCH_LIMIT)
+    bases = _validated_bases(bases)
+    found = []
+    for n in range(9, limit, 2):
+        if any(n % base == 0 for base in bases):
+            continue
+        if all(gmpy2.is_strong_prp(n, base) for base in bases) and not is_prime(n):
+            found.append(n)
+    return found
+
+
+def constructed_strong_pseudoprimes(bases: Sequence[int], count: int,
+                                    multipliers: tuple[int, int] | None = None) -> list[int]:
+    """``count`` composites ``p1 p2 p3`` that are strong pseudoprimes to every prime base.
+
+    Arnault's construction (see the module docstring), ascending in ``p1``.
+    ``multipliers`` is ``(k2, k3)``, two distinct odd primes not among the
+    bases; by default the first pair of primes above the largest base for
+    which every base has an admissible residue class.  Each result is checked
+    with the strong test before it is returned.  The factors are Baillie--PSW
+    probable primes when they exceed ``primality.DETERMINISTIC_LIMIT``.
+    """
+    bases = _validated_bases(bases)
+    count = require_int("count", count, minimum=0, maximum=1000)
+    if any(not is_prime(base) for base in bases):
+        raise InvalidInputError(f"bases={bases}: the construction needs prime bases")
+    if multipliers is None:
+        k2, k3, residues = _first_admissible_multipliers(bases)
+    else:
+        k2, k3 = (require_int("multipliers[0]", multipliers[0], minimum=3),
+                  require_int("multipliers[1]", multipliers[1], minimum=3))
+        if k2 == k3 or not (is_prime(k2) and is_prime(k3)) or k2 in bases or k3 in bases:
+            raise InvalidInputError(
+                f"multipliers={multipliers}: need two distinct odd primes not among the bases")
+        residues = _admissible_residues(bases, (1, k2, k3))
+        if residues is None:
+            raise InvalidInputError(
+                f"multipliers={multipliers}: some base has no admissible residue class")
+    congruences = residues + [(-pow(k3, -1, k2) % k2, k2), (-pow(k2, -1, k3) % k3, k3)]
+    residue, modulus = _chinese_remainder(congruences)
+    found = []
+    p1 = residue
+    while len(found) < count:
+        p2, p3 = k2 * (p1 - 1) + 1, k3 * (p1 - 1) + 1
+        if p1 > max(bases) and is_prime(p1) and is_prime(p2) and is_prime(p3):
+            n = p1 * p2 * p3
+            if not all(gmpy2.is_strong_prp(n, base) for base in bases):
+                raise AssertionError(f"construction failed for bases {bases}: {p1}, {p2}, {p3}")
+            found.append(n)
+        p1 += modulus
+    return found
+
+
+def _validated_bases(bases: Sequence[int]) -> tuple[int, ...]:
+    checked = tuple(require_int(f"bases[{index}]", base, minimum=2)
+                    for index, base in enumerate(bases))
+    if not checked:
+        raise InvalidInputError("bases=(): give at least one base")
+    return checked
+
+
+def _symbol_modulus(base: int) -> int:
+    """A period of ``p -> (base/p)`` over odd primes: 8 for base 2, ``4 * base`` otherwise."""
+    return 8 if base == 2 else 4 * base
+
+
+def _admissible_residues(bases: tuple[int, ...],
+                         multipliers: tuple[int, ...]) -> list[tuple[int, int]] | None:
+    """For each base, the least class ``r mod 4a`` making every ``k(r-1)+1`` a non-residue.
+
+    ``r`` and each ``k(r - 1) + 1`` must be ``3 (mod 4)``, coprime to the base,
+    with Jacobi symbol ``(a / (k(r - 1) + 1)) = -1``.  ``None`` when some base
+    has no such class.
+    """
+    classes = []
+    for base in bases:
+        modulus = _symbol_modulus(base)
+        for r in range(3, modulus, 4):
+            values = [(k * (r - 1) + 1) % modulus for k in multipliers]
+            if all(value % 4 == 3 and gmpy2.gcd(value, base) == 1
+                   and gmpy2.jacobi(base, value) == -1 for value in values):
+                classes.append((r, modulus))
+                break
+        else:
+            return None
+    return classes
+
+
+def _first_admissible_multipliers(bases: tuple[int, ...]) -> tuple[int, int, list[tuple[int, int]]]:
+    """The first pair of primes ``k2 < k3`` above the bases with admissible classes."""
+    k2 = next_prime(max(bases))
+    while True:
+        k3 = next_prime(k2)
+        for _ in range(50):
+            residues = _admissible_residues(bases, (1, k2, k3))
+            if residues is not None:
+                return k2, k3, residues
+            k3 = next_prime(k3)
+        k2 = next_prime(k2)
+
+
+def _chinese_remainder(congruences: list[tuple[int, int]]) -> tuple[int, int]:
+    """Solve ``x = r_i (mod m_i)`` for moduli not necessarily coprime; ``(x, lcm)``."""
+    residue, modulus = 0, 1
+    for r, m in congruences:
+        common = gmpy2.gcd(modulus, m)
+        if (r - residue) % common:
+            raise AssertionError(f"incompatible congruences {residue} mod {modulus}, {r} mod {m}")
+        step = modulus // common
+        lift = (r - residue) // common * pow(step, -1, m // common) % (m // common)
+        residue += modulus * lift
+        modulus = step * m
+        residue %= modulus
+    return int(residue), int(modulus)
