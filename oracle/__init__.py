@@ -4,7 +4,7 @@
 >>> oracle.pi(10**6)
 78498
 >>> oracle.answer("pi", 10**6).provenance
-'table:A006880'
+'table:oeis-a006880'
 
 Plain calls return plain ints and bools; :func:`answer` returns the value with
 its provenance.  Submodules ``oracle.bounds`` (proven intervals) and

@@ -72,6 +72,6 @@ def test_out_of_reach_exits_3_and_says_what_is_proven(capsys):
 
 
 def test_budget_refusal_exits_3(capsys):
-    code, _, err = run(capsys, "value", "twin_pi", "10**13", "--budget", "0.5")
+    code, _, err = run(capsys, "value", "twin_pi", "5*10**13", "--budget", "0.5")
     assert code == 3
     assert "budget" in err
