@@ -464,3 +464,12 @@ def test_fabricated_certificate_for_a_carmichael_number_is_rejected():
 def test_verify_certificate_refuses_non_certificates():
     with pytest.raises(InvalidInputError):
         adversarial.verify_certificate(97)
+
+
+def test_exhaustive_search_accepts_composite_bases():
+    # A number sharing a factor with a composite base (325 = 5^2 * 13) is skipped, not an error.
+    from sympy.ntheory.primetest import mr   # sympy, test-only reference
+
+    found = adversarial.strong_pseudoprimes_below(10**4, (325,))
+    assert found and all(mr(n, [325]) and not sympy.isprime(n) for n in found)
+    assert all(math.gcd(n, 325) == 1 for n in found)

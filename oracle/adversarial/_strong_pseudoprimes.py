@@ -28,6 +28,8 @@ reduces to ``k2 | 1 + k3 p1`` and ``k3 | 1 + k2 p1``.
 
 from __future__ import annotations
 
+import math
+
 from collections.abc import Sequence
 
 import gmpy2
@@ -81,7 +83,7 @@ def strong_pseudoprimes_below(limit: int, bases: Sequence[int] = (2,)) -> list[i
     bases = _validated_bases(bases)
     found = []
     for n in range(9, limit, 2):
-        if any(n % base == 0 for base in bases):
+        if any(math.gcd(n, base) != 1 for base in bases):
             continue
         if all(gmpy2.is_strong_prp(n, base) for base in bases) and not is_prime(n):
             found.append(n)
