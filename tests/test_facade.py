@@ -40,7 +40,7 @@ def test_pi_at_boundaries_matches_primecount(x):
 def test_pi_at_random_points_matches_primecount():
     rng = random.Random(SEED)
     points = [rng.randrange(0, 10**9) for _ in range(400)]
-    points += [int(10 ** rng.uniform(9, 13)) for _ in range(100)]
+    points += [int(10 ** rng.uniform(9, 12)) for _ in range(40)]
     for x in points:
         assert oracle.pi(x) == primecount.prime_pi(x), x
 
