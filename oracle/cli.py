@@ -61,7 +61,78 @@ def build_parser() -> argparse.ArgumentParser:
     commands.add_parser("demo", help="a tour of the oracle on a handful of questions",
                         description="Ask the oracle a handful of questions and show each "
                                     "answer with its provenance.")
+    _add_audit_parser(commands)
+    _add_replay_parser(commands)
     return parser
+
+
+ROLE_NAMES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
+              "primes_in", "factor")
+PROFILE_NAMES = ("quick", "ci", "deep", "exhaustive")
+
+
+def _add_target_options(command) -> None:
+    command.add_argument("--role", choices=ROLE_NAMES, metavar="ROLE",
+                         help="what the target computes: " + ", ".join(ROLE_NAMES)
+                              + " (inferred from the function name when unambiguous)")
+    command.add_argument("--timeout", type=float, default=None, metavar="SECONDS",
+                         help="per-call limit; a slower call is a 'too slow' finding")
+    command.add_argument("--isolate", action="store_true",
+                         help="run a Python target in a child process with a memory limit "
+                              "(executables always are)")
+    command.add_argument("--memory-limit", type=int, default=4096, metavar="MIB",
+                         help="address-space limit of an isolated target (default 4096 MiB)")
+    command.add_argument("--half-open", action="store_true",
+                         help="primes_in(a, b) lists the primes of [a, b) instead of [a, b]")
+    command.add_argument("--factor-shape", choices=("any", "mapping", "flat", "pairs"), default="any",
+                         help="the shape factor(n) must return (default: any of the three)")
+    command.add_argument("--invalid-input", choices=("unchecked", "raise"), default="unchecked",
+                         help="'raise': an input outside the domain must raise (or answer 'error')")
+
+
+def _add_audit_parser(commands) -> None:
+    audit = commands.add_parser(
+        "audit", help="audit a candidate implementation against the oracle",
+        description="Check a candidate at sampled points (tables, boundaries, adversarial "
+                    "families, seeded random points), contain its faults, and localise the "
+                    "first divergence.  Exit 0 all checks passed, 1 a check failed.",
+        epilog=CAUTION)
+    audit.add_argument("target", nargs="?", metavar="TARGET",
+                       help="a Python callable, package.module:function")
+    audit.add_argument("--exec", dest="exec_command", metavar="CMD",
+                       help="an executable speaking the line protocol, e.g. \"./my_pi --fast\"")
+    _add_target_options(audit)
+    audit.add_argument("--profile", choices=PROFILE_NAMES, default="ci", metavar="PROFILE",
+                       help="quick | ci (default) | deep | exhaustive")
+    audit.add_argument("--seed", metavar="N", help="seed of the random points (printed by every run)")
+    audit.add_argument("--max", dest="maximum", metavar="N",
+                       help="the largest input the target claims to handle; checks above are skipped")
+    audit.add_argument("--json", dest="json_file", metavar="FILE", help="write the summary as JSON")
+    audit.add_argument("--report", metavar="DIR", help="write summary.json and report.txt into DIR")
+    audit.add_argument("--stream", metavar="FILE", default=os.path.join(".ntoracle", "last-audit.jsonl"),
+                       help="JSON-lines file of results, written as they happen "
+                            "(default .ntoracle/last-audit.jsonl)")
+    audit.add_argument("--corpus", metavar="FILE", default=os.path.join(".ntoracle", "regressions.yaml"),
+                       help="regression corpus, replayed first and extended with new failures "
+                            "(default .ntoracle/regressions.yaml)")
+    audit.add_argument("--no-corpus", action="store_true", help="neither replay nor record regressions")
+    audit.add_argument("--summary-from", metavar="FILE",
+                       help="do not audit: rebuild and print the summary of a (possibly "
+                            "interrupted) run from its JSON-lines file")
+
+
+def _add_replay_parser(commands) -> None:
+    replay = commands.add_parser(
+        "replay", help="re-run recorded failures",
+        description="Ask again every input of a regression corpus (YAML) or of the failures in a "
+                    "results file (JSON lines).  The target recorded with each failure is used "
+                    "unless TARGET or --exec is given.  Exit 0 when all pass now, 1 otherwise.",
+        epilog=CAUTION)
+    replay.add_argument("file", metavar="FILE", help=".ntoracle/regressions.yaml or a .jsonl results file")
+    replay.add_argument("target", nargs="?", metavar="TARGET", help="package.module:function")
+    replay.add_argument("--exec", dest="exec_command", metavar="CMD", help="an executable target")
+    replay.add_argument("--json", dest="json_file", metavar="FILE", help="write the summaries as JSON")
+    _add_target_options(replay)
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -70,7 +141,8 @@ def main(argv: list[str] | None = None) -> int:
     if arguments.command is None:
         parser.print_help()
         return EXIT_USAGE
-    handler = {"value": _value, "bounds": _bounds, "demo": _demo}[arguments.command]
+    handler = {"value": _value, "bounds": _bounds, "demo": _demo, "audit": _audit,
+               "replay": _replay}[arguments.command]
     try:
         return handler(arguments)
     except OutOfReachError as error:
@@ -135,8 +207,8 @@ _TOUR = (
     ("quadruplets", 10**8, "prime quadruplets (p, p+2, p+6, p+8) up to 10**8"),
     ("nth_prime", 10**6, "the millionth prime"),
     ("is_prime", 3215031751, "a strong pseudoprime to bases 2, 3, 5 and 7 (OEIS A014233)"),
-    ("is_prime", 2**89 - 1, "a Mersenne prime"),
-    ("next_prime", 2**64, "the first prime above 2**64: Baillie-PSW, probable"),
+    ("is_prime", 2**89 - 1, "a Mersenne prime, above the proven range: Baillie-PSW"),
+    ("next_prime", 2**64, "the first prime above 2**64 (12 Miller-Rabin bases prove it)"),
     ("prev_prime", 2**64, "the largest prime below 2**64"),
 )
 
@@ -155,6 +227,200 @@ def _demo(arguments) -> int:
         print(f"      [{result.provenance}]  {comment}  ({elapsed:.2f} s)")
     print(f"\n{CAUTION}")
     return EXIT_OK
+
+
+def _conventions(arguments):
+    from .roles import Conventions
+
+    return Conventions(primes_range="half-open" if arguments.half_open else "closed",
+                       factor_shape=arguments.factor_shape, invalid_input=arguments.invalid_input)
+
+
+def _make_target(spec, command, role, arguments):
+    from . import targets
+
+    timeout = arguments.timeout
+    if timeout is not None and not timeout > 0:
+        raise InvalidInputError(f"--timeout {timeout}: must be a positive number of seconds")
+    if not arguments.memory_limit > 0:
+        raise InvalidInputError(f"--memory-limit {arguments.memory_limit}: must be positive")
+    memory = arguments.memory_limit * 2**20
+    if command is not None:
+        return targets.exec_target(command, role_name=role, timeout=timeout or 1.0,
+                                   memory_limit=memory), "exec"
+    if os.getcwd() not in sys.path and "" not in sys.path:
+        sys.path.insert(0, os.getcwd())
+    return targets.python_target(spec, role_name=role, timeout=timeout or 1.0,
+                                 isolate=arguments.isolate, memory_limit=memory), "python"
+
+
+def _role_of(spec, command, given) -> str:
+    from . import roles
+
+    if given:
+        return given
+    if spec:
+        return roles.infer(spec.rpartition(":")[2].rpartition(".")[2])
+    return roles.infer(os.path.basename(command.split()[0]).rpartition(".")[0]
+                       or os.path.basename(command.split()[0]))
+
+
+def _audit(arguments) -> int:
+    from . import engine, sampling
+
+    if arguments.summary_from:
+        summary = engine.rebuild_summary(arguments.summary_from)
+        _print_summary(summary)
+        _write_json(arguments.json_file, summary)
+        return EXIT_OK if summary["passed"] else EXIT_FAILED
+    if (arguments.target is None) == (arguments.exec_command is None):
+        raise InvalidInputError("give either TARGET (package.module:function) or --exec CMD")
+    role = _role_of(arguments.target, arguments.exec_command, arguments.role)
+    seed = parse_integer(arguments.seed) if arguments.seed is not None else sampling.new_seed()
+    if seed < 0:
+        raise InvalidInputError(f"--seed {seed}: must be >= 0")
+    maximum = parse_integer(arguments.maximum) if arguments.maximum is not None else None
+    profile = sampling.profile(arguments.profile)
+    timeout = arguments.timeout if arguments.timeout is not None else profile.timeout
+    arguments.timeout = timeout
+    target, kind = _make_target(arguments.target, arguments.exec_command, role, arguments)
+    print(f"ntoracle audit: {target.description} as {role}, profile {profile.name}, seed {seed} "
+          f"(repeat with --seed {seed}); timeout {timeout:g} s per call"
+          + (f"; declared domain <= {maximum}" if maximum is not None else ""), flush=True)
+    options = engine.AuditOptions(role=role, profile=profile.name, seed=seed, timeout=timeout,
+                                  maximum=maximum, conventions=_conventions(arguments),
+                                  corpus=None if arguments.no_corpus else arguments.corpus,
+                                  stream=arguments.stream)
+    try:
+        summary = engine.run_audit(target, options, kind=kind)
+    finally:
+        target.close()
+    _print_summary(summary)
+    if arguments.stream:
+        print(f"results: {arguments.stream}")
+    _write_json(arguments.json_file, summary)
+    if arguments.report:
+        _write_report(arguments.report, summary)
+    if not summary["passed"]:
+        return EXIT_FAILED
+    if summary["checks"] == 0 and summary["skipped"].get("out of the oracle's reach"):
+        print("ntoracle: no point was within the oracle's reach", file=sys.stderr)
+        return EXIT_OUT_OF_REACH
+    return EXIT_OK
+
+
+def _replay(arguments) -> int:
+    from . import engine
+
+    groups = _replay_groups(arguments.file)
+    if not groups:
+        print(f"{arguments.file}: no recorded failures to replay")
+        return EXIT_OK
+    summaries = []
+    for (spec, kind, role), points in groups.items():
+        if arguments.target or arguments.exec_command:
+            spec, kind = arguments.exec_command or arguments.target, "exec" if arguments.exec_command else "python"
+        role = arguments.role or role
+        target, kind = _make_target(spec if kind == "python" else None,
+                                    spec if kind == "exec" else None, role, arguments)
+        options = engine.AuditOptions(role=role, profile="ci", seed=0,
+                                      timeout=arguments.timeout or 10.0,
+                                      conventions=_conventions(arguments))
+        try:
+            summary = engine.run_audit(target, options, only=points, kind=kind)
+        finally:
+            target.close()
+        summaries.append(summary)
+        still = len(summary["failures"])
+        print(f"replay: {target.description} as {role}: {len(points)} recorded input(s), "
+              f"{still} still failing")
+        for failure in summary["failures"][:20]:
+            print("  " + _describe(failure))
+    _write_json(arguments.json_file, summaries)
+    return EXIT_OK if all(s["passed"] for s in summaries) else EXIT_FAILED
+
+
+def _replay_groups(path: str) -> dict:
+    from . import engine
+
+    if not os.path.exists(path):
+        raise InvalidInputError(f"{path}: no such file")
+    groups: dict = {}
+    if path.endswith(".jsonl"):
+        records = engine.read_records(path)
+        start = next((r for r in records if r.get("type") == "start"), None)
+        if start is None:
+            raise InvalidInputError(f"{path}: not a results file of ntoracle audit (no start record)")
+        kind = "exec" if start.get("isolated") and " " in start["target"] or ":" not in start["target"] else "python"
+        for record in records:
+            if record.get("type") == "check" and record["status"] in engine.FAILURE_STATUSES \
+                    and record["family"] not in ("identity",):
+                key = (start["target"], kind, start["role"])
+                groups.setdefault(key, [])
+                if record["arguments"] not in groups[key]:
+                    groups[key].append(record["arguments"])
+        return groups
+    for entry in engine.load_corpus(path):
+        key = (entry.get("target"), entry.get("kind", "python"), entry["role"])
+        groups.setdefault(key, []).append(entry["arguments"])
+    return groups
+
+
+def _describe(failure: dict) -> str:
+    call = ", ".join(str(a) for a in failure["arguments"])
+    text = f"[{failure['status']}] {failure['check']} at ({call}) [{failure['family']}]"
+    if failure["status"] in ("wrong", "nondeterministic"):
+        got = str(failure["got"])
+        expected = str(failure["expected"])
+        text += f": got {got[:80]}, expected {expected[:80]} [{failure['provenance']}]"
+    if failure.get("detail") and not failure["detail"].startswith("got "):
+        text += f" -- {failure['detail'][:160]}"
+    return text
+
+
+def _print_summary(summary: dict) -> None:
+    failures = summary["failures"]
+    verdict = "PASSED" if summary["passed"] else "FAILED"
+    print(f"{verdict}: {summary['passed_checks']} of {summary['checks']} checks passed, "
+          f"{len(failures)} finding(s)" + ("" if summary["complete"] else " (run interrupted)"))
+    for failure in failures[:20]:
+        print("  " + _describe(failure))
+    if len(failures) > 20:
+        print(f"  ... and {len(failures) - 20} more (see the results file)")
+    divergence = summary["first_divergence"]
+    if divergence:
+        where = divergence.get("prime", divergence.get("input"))
+        print(f"{divergence['kind']}: {where}"
+              + (f" (last agreeing: {divergence['last_agreeing']})" if "last_agreeing" in divergence else "")
+              + (f"; got {divergence.get('got')}, expected {divergence.get('expected')}"
+                 if "got" in divergence else "")
+              + (f" [{divergence['provenance']}]" if divergence.get("provenance") else ""))
+    for reason, count in summary["skipped"].items():
+        print(f"skipped {count} point(s): {reason} (not counted as passed)")
+    timings = summary["timings"]
+    first = timings["first_finding_seconds"]
+    print(f"time: {timings['total_seconds']:.2f} s"
+          + (f"; first finding after {first:.3f} s" if first is not None else ""))
+    print(CAUTION)
+
+
+def _write_json(path, data) -> None:
+    if path:
+        with open(path, "w", encoding="utf-8") as handle:
+            json.dump(data, handle, indent=1)
+
+
+def _write_report(directory: str, summary: dict) -> None:
+    import contextlib
+    import io
+
+    os.makedirs(directory, exist_ok=True)
+    _write_json(os.path.join(directory, "summary.json"), summary)
+    text = io.StringIO()
+    with contextlib.redirect_stdout(text):
+        _print_summary(summary)
+    with open(os.path.join(directory, "report.txt"), "w", encoding="utf-8") as handle:
+        handle.write(text.getvalue())
 
 
 def _show(value) -> str:

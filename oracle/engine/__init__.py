@@ -1,0 +1,22 @@
+"""The audit engine: run the checks, contain the faults, localise, record.
+
+>>> from oracle import engine, targets
+>>> target = targets.python_target("sympy:primepi", role_name="prime_pi", timeout=10)
+>>> summary = engine.run_audit(target, engine.AuditOptions(role="prime_pi", profile="quick", seed=1))
+>>> summary["passed"]                                         # doctest: +SKIP
+True
+
+Passing these checks is evidence, not a certificate of correctness.
+"""
+
+from ._audit import AuditOptions, run_audit
+from ._corpus import DEFAULT_CORPUS, load_corpus, record_failures
+from ._records import FAILURE_STATUSES, read_records, summarise
+
+__all__ = ["AuditOptions", "run_audit", "DEFAULT_CORPUS", "load_corpus", "record_failures",
+           "FAILURE_STATUSES", "read_records", "summarise", "rebuild_summary"]
+
+
+def rebuild_summary(path) -> dict:
+    """The summary of the audit whose records are in the JSON-lines file ``path``."""
+    return summarise(read_records(path))

@@ -1,0 +1,66 @@
+"""The roles a candidate can play, and what is checked for each.
+
+>>> from oracle import roles
+>>> roles.get("prime_pi").signature
+'prime_pi(x) -> int: number of primes p <= x; 0 for x < 2'
+>>> roles.infer("my_prime_pi")
+'prime_pi'
+
+One module per role (DESIGN.md, "Candidate conventions"); :class:`Conventions`
+holds what a target may declare differently (half-open ranges, factor shape,
+behaviour on invalid input).
+"""
+
+from __future__ import annotations
+
+from .._errors import InvalidInputError
+from ._role import Conventions, Role, Verdict, WrongType
+from . import (factor, is_prime, next_prime, nth_prime, prev_prime, prime_pi, primes_in,
+               twin_pi)
+
+__all__ = ["Conventions", "Role", "Verdict", "WrongType", "ROLES", "get", "infer"]
+
+#: Every role by name.
+ROLES: dict[str, Role] = {module.ROLE.name: module.ROLE for module in (
+    prime_pi, twin_pi, nth_prime, is_prime, next_prime, prev_prime, primes_in, factor)}
+
+# Other names real libraries give the same function (used only to infer a role).
+_ALIASES = {
+    "primepi": "prime_pi", "pi": "prime_pi", "count_primes": "prime_pi", "prime_count": "prime_pi",
+    "twin_primes_count": "twin_pi", "count_twins": "twin_pi", "twinpi": "twin_pi",
+    "prime": "nth_prime", "nthprime": "nth_prime",
+    "isprime": "is_prime", "is_probable_prime": "is_prime", "primality": "is_prime",
+    "nextprime": "next_prime", "prevprime": "prev_prime", "previous_prime": "prev_prime",
+    "primes": "primes_in", "primerange": "primes_in", "primes_between": "primes_in",
+    "sieve": "primes_in", "factorint": "factor", "factorize": "factor",
+    "factorise": "factor", "factorization": "factor",
+}
+
+
+def get(name: str) -> Role:
+    """The role called ``name``."""
+    if name not in ROLES:
+        raise InvalidInputError(f"role={name!r}: expected one of {', '.join(ROLES)}")
+    return ROLES[name]
+
+
+def infer(function_name: str) -> str:
+    """The role a function name points to, when exactly one fits.
+
+    The name matches a role if it equals the role or an alias, or ends with
+    one after an underscore (``my_prime_pi``; the longest such ending decides);
+    raises when none or several fit.
+    """
+    name = function_name.lower()
+    names = {**{role: role for role in ROLES}, **_ALIASES}
+    if name in names:
+        return names[name]
+    suffixes = [alias for alias in names if name.endswith("_" + alias)]
+    longest = max((len(alias) for alias in suffixes), default=0)
+    matches = {names[alias] for alias in suffixes if len(alias) == longest}
+    if len(matches) == 1:
+        return matches.pop()
+    raise InvalidInputError(
+        f"cannot infer the role of {function_name!r}"
+        + (f" (it could be {', '.join(sorted(matches))})" if matches else "")
+        + f"; pass --role, one of {', '.join(ROLES)}")

@@ -1,0 +1,105 @@
+"""Which points to check: families of inputs per role and profile, reproducible from a seed.
+
+>>> from oracle import sampling, roles
+>>> points = sampling.sample(roles.get("prime_pi"), sampling.profile("quick"), seed=1)
+>>> points[0]
+Sample(family='exhaustive', arguments=(0,))
+
+Families (see :mod:`oracle.sampling._families`): exhaustive small ranges,
+published table points, boundaries, primes and their neighbours, prime squares,
+segment-size multiples, record-gap ends, twin pairs, the adversarial families
+of :mod:`oracle.adversarial`, and seeded uniform and log-uniform random points.
+The same seed gives the same points; a run prints its seed.
+"""
+
+from __future__ import annotations
+
+import os
+from dataclasses import dataclass
+
+from .._integers import require_int
+from ..roles import Role
+from ._families import family, rng_for
+from ._profiles import HEAVY, PROFILES, Profile, profile
+
+__all__ = ["Sample", "Profile", "PROFILES", "HEAVY", "profile", "sample", "new_seed"]
+
+#: Longest primes_in interval sampled high up (a candidate lists every prime in it).
+_WINDOW_HIGH = 2**12
+#: Prefix listings primes_in(0, b) are sampled up to this b.
+_PREFIX_LIMIT = 2**21
+_PAIRS_LIMIT = 40
+
+
+@dataclass(frozen=True)
+class Sample:
+    """One point to check: the family it comes from and the arguments of the call."""
+
+    family: str
+    arguments: tuple[int, ...]
+
+
+def new_seed() -> int:
+    """A fresh seed (printed by every run, so the run can be repeated)."""
+    return int.from_bytes(os.urandom(4), "big")
+
+
+def sample(role: Role, chosen: Profile, seed: int) -> list[Sample]:
+    """The points of one run, in the order they should be checked (cheap families first)."""
+    seed = require_int("seed", seed, minimum=0)
+    ceiling = chosen.ceilings[role.name]
+    seen: set[tuple[int, ...]] = set()
+    found: list[Sample] = []
+    for name in role.families:
+        rng = rng_for(seed, role.name, name)
+        values = family(name, role.name)(ceiling, chosen, rng)
+        if role.arity == 2:
+            candidates = _intervals(name, values, ceiling, chosen, rng)
+        else:
+            candidates = [(value,) for value in values if value >= role.minimum]
+        for arguments in candidates:
+            if arguments not in seen:
+                seen.add(arguments)
+                found.append(Sample(name, arguments))
+    if role.name in HEAVY:
+        found = _thin_heavy(found, HEAVY[role.name], chosen.heavy_points)
+    return found
+
+
+def _thin_heavy(found: list[Sample], threshold: int, keep: int) -> list[Sample]:
+    """Keep at most ``keep`` points above ``threshold``, taking them in turn from each family,
+    largest first (word-size wraps show at the top of the range)."""
+    heavy = [s for s in found if max(s.arguments) > threshold]
+    if len(heavy) <= keep:
+        return found
+    by_family: dict[str, list[Sample]] = {}
+    for s in sorted(heavy, key=lambda s: max(s.arguments), reverse=True):
+        by_family.setdefault(s.family, []).append(s)
+    kept: set[Sample] = set()
+    while len(kept) < keep:
+        for queue in by_family.values():
+            if queue and len(kept) < keep:
+                kept.add(queue.pop(0))
+    return [s for s in found if max(s.arguments) <= threshold or s in kept]
+
+
+def _intervals(name: str, values: list[int], ceiling: int, chosen: Profile, rng) -> list[tuple[int, int]]:
+    """Intervals [a, b] for primes_in built from one family's integers."""
+    if name == "exhaustive":
+        limit = min(_PAIRS_LIMIT, chosen.exhaustive)
+        pairs = [(a, b) for b in range(limit + 1) for a in range(b + 1)]
+        return pairs + [(5, 3), (3, 2)]
+    if name in ("uniform", "log-uniform"):
+        result = []
+        for a in values:
+            length = int(2 ** rng.uniform(0, 16 if a < 2**32 else 12))
+            result.append((a, min(a + length, ceiling)))
+        return result
+    result = []
+    for c in values:
+        result.append((max(c - 1, 0), c + 1))
+        result.append((c, c))
+        result.append((max(c - 30, 0), c + 30))
+        if c <= _PREFIX_LIMIT and name in ("segments", "boundaries"):
+            result.append((0, c))
+    return [(a, b) for a, b in result if b <= ceiling]

@@ -1,0 +1,74 @@
+"""``ntoracle audit`` and ``ntoracle replay``: the DESIGN contract (exit codes, --json, seed)."""
+
+import json
+import sys
+
+import pytest
+
+from oracle import cli
+
+
+def run(capsys, *argv):
+    code = cli.main(list(argv))
+    out, err = capsys.readouterr()
+    return code, out, err
+
+
+@pytest.fixture
+def in_tmp(tmp_path, monkeypatch):
+    monkeypatch.chdir(tmp_path)
+    return tmp_path
+
+
+def test_passing_audit_exits_0_and_prints_the_seed(capsys, in_tmp):
+    code, out, _ = run(capsys, "audit", "_candidates:prime_pi", "--profile", "quick",
+                       "--seed", "42", "--max", "10**4", "--json", "s.json")
+    assert code == 0
+    assert "seed 42" in out and "evidence, not a certificate" in out
+    summary = json.loads((in_tmp / "s.json").read_text())
+    assert summary["passed"] and summary["seed"] == 42 and summary["role"] == "prime_pi"
+    assert {"target", "profile", "checks", "failures", "first_divergence", "timings"} <= set(summary)
+    assert (in_tmp / ".ntoracle" / "last-audit.jsonl").exists()
+
+
+def test_failing_audit_exits_1_records_and_replays(capsys, in_tmp):
+    code, out, _ = run(capsys, "audit", "_candidates:nth_prime_zero_based", "--role", "nth_prime",
+                       "--profile", "quick",
+                       "--seed", "1", "--max", "5000")
+    assert code == 1
+    assert "first divergence: [1]" in out                # p_1 = 2, the candidate answers 3
+    assert (in_tmp / ".ntoracle" / "regressions.yaml").exists()
+    code, out, _ = run(capsys, "replay", ".ntoracle/regressions.yaml")
+    assert code == 1 and "still failing" in out
+    code, out, _ = run(capsys, "replay", ".ntoracle/regressions.yaml", "_candidates:nth_prime",
+                       "--role", "nth_prime")
+    assert code == 0 and "0 still failing" in out
+
+
+def test_exec_target_audit(capsys, in_tmp):
+    script = in_tmp / "pi.py"
+    script.write_text("import sys, sympy\nfor line in sys.stdin:\n"
+                      "    print(sympy.primepi(int(line)), flush=True)\n")
+    code, out, _ = run(capsys, "audit", "--exec", f"{sys.executable} {script}", "--role", "prime_pi",
+                       "--profile", "quick", "--seed", "2", "--max", "3000", "--no-corpus")
+    assert code == 0, out
+
+
+@pytest.mark.parametrize("argv", [
+    ["audit"],                                                     # no target
+    ["audit", "_candidates:frobnicate_numbers"],                   # no such function
+    ["audit", "_candidates:prime_pi", "--timeout", "0"],
+    ["audit", "_candidates:prime_pi", "--seed", "-3"],
+    ["audit", "_candidates:prime_pi", "--profile", "fast"],
+    ["replay", "no-such-file.yaml"],
+])
+def test_usage_errors_exit_2(capsys, in_tmp, argv):
+    with pytest.raises(SystemExit) as raised:
+        raise SystemExit(cli.main(argv))
+    assert raised.value.code == 2
+
+
+def test_role_inferred_from_the_function_name(capsys, in_tmp):
+    code, out, _ = run(capsys, "audit", "_candidates:is_prime", "--profile", "quick", "--seed", "1",
+                       "--no-corpus", "--max", "10**6")
+    assert code == 0 and "as is_prime" in out

@@ -1,0 +1,110 @@
+"""The engine catches our small defective candidates, localises them, streams and records."""
+
+import json
+
+import pytest
+
+from oracle import engine, targets
+from oracle.engine import AuditOptions
+
+SMALL = 20_000      # declared domain keeping these runs fast; the points above are skipped
+
+
+def audit(spec, role, tmp_path, *, maximum=SMALL, profile="quick", isolate=False, seed=3, **options):
+    target = targets.python_target(spec, role_name=role, timeout=options.pop("timeout", 2.0),
+                                   isolate=isolate)
+    try:
+        return engine.run_audit(target, AuditOptions(role=role, profile=profile, seed=seed,
+                                                     maximum=maximum, stream=str(tmp_path / "r.jsonl"),
+                                                     corpus=str(tmp_path / "regressions.yaml"),
+                                                     **options))
+    finally:
+        target.close()
+
+
+def test_correct_candidate_passes_and_skips_above_its_domain(tmp_path):
+    summary = audit("_candidates:prime_pi", "prime_pi", tmp_path)
+    assert summary["passed"] and summary["checks"] > 300
+    assert summary["skipped"]["above the declared domain (--max)"] > 0
+    assert not (tmp_path / "regressions.yaml").exists()
+
+
+def test_first_divergence_by_bisection(tmp_path):
+    summary = audit("_candidates:prime_pi_from_1000", "prime_pi", tmp_path, maximum=10**6)
+    assert not summary["passed"]
+    divergence = summary["first_divergence"]
+    assert divergence["kind"] == "first divergence"
+    assert divergence["input"] == [1000] and divergence["last_agreeing"] == 999
+    assert divergence["expected"] == 168                   # OEIS A006880: pi(1000) = 168
+
+
+def test_off_by_one_at_primes_found_at_two(tmp_path):
+    summary = audit("_candidates:prime_pi_exclusive", "prime_pi", tmp_path)
+    assert summary["first_divergence"]["input"] == [2]
+
+
+def test_wrong_type_is_a_finding(tmp_path):
+    summary = audit("_candidates:prime_pi_none", "prime_pi", tmp_path)
+    statuses = {(f["status"], tuple(f["arguments"])) for f in summary["failures"]}
+    assert ("wrong-type", (50,)) in statuses
+
+
+def test_hang_is_too_slow_not_wrong(tmp_path):
+    summary = audit("_candidates:prime_pi_slow", "prime_pi", tmp_path, timeout=0.3)
+    kinds = {f["status"] for f in summary["failures"]}
+    assert kinds == {"too-slow"}
+    assert summary["skipped"].get("at least as large as inputs that timed out", 0) > 0
+
+
+def test_nondeterminism_is_caught_by_reasking(tmp_path):
+    summary = audit("_candidates:prime_pi_random", "prime_pi", tmp_path, maximum=2000, seed=4)
+    assert any(f["status"] == "nondeterministic" for f in summary["failures"]) or \
+        any(f["status"] == "wrong" for f in summary["failures"])
+    assert not summary["passed"]
+
+
+def test_crash_in_isolated_candidate_is_a_finding(tmp_path):
+    summary = audit("_candidates:prime_pi_crash", "prime_pi", tmp_path, isolate=True, maximum=500)
+    crashed = [f for f in summary["failures"] if f["status"] == "crashed"]
+    assert [f["arguments"] for f in crashed] == [[77]]
+
+
+def test_fermat_test_caught_at_the_smallest_pseudoprime(tmp_path):
+    summary = audit("_candidates:is_prime_fermat", "is_prime", tmp_path, profile="ci", maximum=10**5)
+    divergence = summary["first_divergence"]
+    assert divergence["input"] == [341]          # 341 = 11 * 31, least base-2 Fermat pseudoprime (OEIS A001567)
+
+
+def test_primes_in_first_missing_prime(tmp_path):
+    summary = audit("_candidates:primes_in_drops_first", "primes_in", tmp_path, maximum=10**6)
+    divergence = summary["first_divergence"]
+    assert divergence["kind"] == "first missing prime" and divergence["prime"] == 2
+
+
+def test_factor_losing_multiplicity(tmp_path):
+    summary = audit("_candidates:factor_set", "factor", tmp_path, maximum=10**6)
+    assert summary["first_divergence"]["input"] == [4]
+
+
+def test_failures_recorded_and_replayed_first(tmp_path):
+    audit("_candidates:next_prime_inclusive", "next_prime", tmp_path, maximum=10**4)
+    corpus = engine.load_corpus(tmp_path / "regressions.yaml")
+    assert [2] in [entry["arguments"] for entry in corpus]
+    again = audit("_candidates:next_prime_inclusive", "next_prime", tmp_path, maximum=10**4)
+    first = next(r for r in engine.read_records(tmp_path / "r.jsonl") if r["type"] == "check")
+    assert first["family"] == "regression"
+    assert again["corpus_added"] == 0
+
+
+def test_interrupted_stream_rebuilds_the_summary(tmp_path):
+    summary = audit("_candidates:prime_pi_exclusive", "prime_pi", tmp_path, maximum=3000)
+    path = tmp_path / "r.jsonl"
+    assert engine.rebuild_summary(path)["failures"] == summary["failures"]
+    lines = path.read_text().splitlines()
+    cut = tmp_path / "cut.jsonl"
+    cut.write_text("\n".join(lines[:200]) + "\n" + lines[200][:17])   # killed mid-write
+    partial = engine.rebuild_summary(cut)
+    # line 0 is the start record, lines 1..199 are checks, line 200 is torn and dropped
+    assert not partial["complete"] and partial["checks"] == 199
+    assert partial["seed"] == 3 and not partial["passed"]
+    json.dumps(partial)

@@ -1,0 +1,123 @@
+"""The roles judge answers correctly: against published values and sympy (test-only reference)."""
+
+import numpy as np
+import pytest
+import sympy
+
+from oracle import InvalidInputError, roles
+from oracle.roles import Conventions, WrongType
+
+CONVENTIONS = Conventions()
+
+
+def judge(role_name, arguments, raw, conventions=CONVENTIONS):
+    role = roles.get(role_name)
+    return role.judge(arguments, role.normalise(raw, conventions), conventions, 5.0)
+
+
+def test_registry_has_the_eight_roles_of_the_design():
+    assert set(roles.ROLES) == {"prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
+                                "prev_prime", "primes_in", "factor"}
+
+
+@pytest.mark.parametrize("name, role", [("prime_pi", "prime_pi"), ("my_prime_pi", "prime_pi"),
+                                        ("my_twin_pi", "twin_pi"), ("primepi", "prime_pi"),
+                                        ("factorint", "factor"), ("fast_is_prime", "is_prime"),
+                                        ("nextprime", "next_prime")])
+def test_role_inferred_from_function_name(name, role):
+    assert roles.infer(name) == role
+
+
+@pytest.mark.parametrize("name", ["frobnicate", "sum_of_squares"])
+def test_role_not_inferred_raises(name):
+    with pytest.raises(InvalidInputError, match="--role"):
+        roles.infer(name)
+
+
+def test_prime_pi_exact_at_published_value():
+    assert judge("prime_pi", (10**9,), 50847534).passed          # OEIS A006880
+    wrong = judge("prime_pi", (10**9,), 50847533)
+    assert not wrong.passed and wrong.expected == 50847534 and wrong.provenance.startswith("table:")
+
+
+def test_prime_pi_beyond_reach_uses_the_proven_interval():
+    verdict = judge("prime_pi", (10**30,), 10**20)
+    assert verdict.check == "proven-interval" and not verdict.passed
+    assert verdict.provenance.startswith("bounds:")
+
+
+def test_counts_accept_numpy_and_gmpy_integers_but_not_floats():
+    import gmpy2
+
+    assert judge("prime_pi", (100,), np.int64(25)).passed        # OEIS A006880: pi(100) = 25
+    assert judge("prime_pi", (100,), gmpy2.mpz(25)).passed
+    for raw in (25.0, None, "25", True):
+        with pytest.raises(WrongType):
+            roles.get("prime_pi").normalise(raw, CONVENTIONS)
+
+
+def test_twin_pi_counts_pairs_by_their_larger_member():
+    # pairs (3,5), (5,7): at x = 6 only (3,5) has p + 2 <= x  (definition; OEIS A007508 for 10**3 = 35)
+    assert judge("twin_pi", (6,), 1).passed
+    assert not judge("twin_pi", (6,), 2).passed
+    assert judge("twin_pi", (1000,), 35).passed
+
+
+def test_nth_prime_against_sympy():
+    for n in (1, 2, 100, 10**5):
+        assert judge("nth_prime", (n,), sympy.prime(n)).passed
+    assert not judge("nth_prime", (100,), 547).passed
+
+
+@pytest.mark.parametrize("n", [561, 2047, 3215031751, 2**61 - 1, 2**89 - 1])
+def test_is_prime_against_sympy(n):
+    assert judge("is_prime", (n,), sympy.isprime(n)).passed
+    assert not judge("is_prime", (n,), not sympy.isprime(n)).passed
+
+
+def test_is_prime_accepts_zero_and_one_but_not_two():
+    assert judge("is_prime", (7,), 1).passed
+    with pytest.raises(WrongType):
+        roles.get("is_prime").normalise(2, CONVENTIONS)
+
+
+def test_next_and_prev_prime_explain_returning_n_itself():
+    assert judge("next_prime", (13,), 17).passed
+    inclusive = judge("next_prime", (13,), 13)
+    assert not inclusive.passed and "n itself" in inclusive.detail
+    assert judge("prev_prime", (3,), 2).passed
+    assert not judge("prev_prime", (2**31,), 2**31 - 2).passed      # 2**31 - 1 is prime (Euler)
+
+
+def test_primes_in_reports_first_missing_and_repeated_prime():
+    truth = list(sympy.primerange(100, 201))
+    assert judge("primes_in", (100, 200), truth).passed
+    missing = judge("primes_in", (100, 200), [p for p in truth if p != 113])
+    assert "first missing prime: 113" in missing.detail
+    repeated = judge("primes_in", (100, 200), truth[:3] + truth[2:])
+    assert "repeated" in repeated.detail
+
+
+def test_primes_in_half_open_convention():
+    half_open = Conventions(primes_range="half-open")
+    assert judge("primes_in", (2, 7), [2, 3, 5], half_open).passed
+    assert not judge("primes_in", (2, 7), [2, 3, 5]).passed
+
+
+@pytest.mark.parametrize("raw", [{2: 2, 3: 1}, [2, 2, 3], [(2, 2), (3, 1)], np.array([2, 2, 3])])
+def test_factor_accepts_the_three_shapes(raw):
+    assert judge("factor", (12,), raw).passed
+
+
+def test_factor_rejects_wrong_product_composite_factor_and_declared_shape():
+    assert not judge("factor", (12,), [2, 3]).passed
+    composite = judge("factor", (2047,), [2047])                 # 2047 = 23 * 89 (Mersenne 2**11 - 1)
+    assert not composite.passed and "composite" in composite.detail
+    assert judge("factor", (1,), {}).passed
+    with pytest.raises(WrongType):
+        roles.get("factor").normalise([2, 2, 3], Conventions(factor_shape="mapping"))
+
+
+def test_bad_conventions_are_refused():
+    with pytest.raises(InvalidInputError, match="primes_range"):
+        Conventions(primes_range="open")
