@@ -21,7 +21,7 @@ python=${PYTHON:-python3}
 if [ ! -x .venv/bin/python ]; then
     "$python" -m venv .venv
 fi
-.venv/bin/python -m pip install -q --upgrade pip
+.venv/bin/python -m pip install -q --upgrade pip "setuptools>=68" wheel
 if dpkg -s libprimesieve-dev >/dev/null 2>&1; then
     extras="fast,test"
 else

@@ -50,6 +50,16 @@ CATALOGUE = yaml.safe_load(CATALOGUE_PATH.read_text())
 BY_ID = {entry["id"]: entry for entry in CATALOGUE}
 
 
+def exec_command(command: str) -> list[str]:
+    """The catalogue's command, with a leading ``python`` run by this interpreter.
+
+    CI runs ``.venv/bin/python -m pytest`` without activating the venv, so a
+    bare ``python`` on PATH may be another interpreter without the libraries.
+    """
+    words = shlex.split(command)
+    return [sys.executable, *words[1:]] if words and words[0] == "python" else words
+
+
 def entries(*, defective: bool, python: bool | None = None, kind: str | None = None):
     """Catalogue entries filtered by defectiveness, by kind of target and by kind of defect."""
     chosen = []
@@ -166,7 +176,7 @@ class LineClient:
 
     def __init__(self, command: str):
         self.process = subprocess.Popen(
-            shlex.split(command), cwd=REPOSITORY_ROOT, text=True, bufsize=1,
+            exec_command(command), cwd=REPOSITORY_ROOT, text=True, bufsize=1,
             stdin=subprocess.PIPE, stdout=subprocess.PIPE, stderr=subprocess.PIPE)
 
     def ask(self, role, argument) -> str | None:
@@ -235,7 +245,7 @@ def test_catalogue_entry_is_well_formed(entry):
         assert callable(getattr(module, function_name))
         assert ("DEFECT" in module.__doc__) == entry["defective"]
     else:
-        command = shlex.split(entry["exec"])
+        command = exec_command(entry["exec"])
         assert (REPOSITORY_ROOT / command[-1]).is_file()
 
 
