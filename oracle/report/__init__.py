@@ -1,0 +1,29 @@
+"""Reports of audits: a progress line and a summary table on the terminal, JSON, and HTML.
+
+>>> from oracle import report
+>>> with report.Progress(total=3, description="prime_pi", quiet=True) as progress:
+...     for _ in range(3):
+...         progress.advance()
+>>> progress.completed
+3
+
+* :class:`Progress` and :func:`summary_table` -- the terminal (rich; plain text and
+  no colour when the stream is not a terminal or ``NO_COLOR`` is set);
+* :func:`write_json` -- the summaries with the stable keys of :data:`SUMMARY_KEYS`
+  (documented in :mod:`oracle.report._json`);
+* :func:`write_html` -- one self-contained HTML file with embedded plots;
+* :func:`reproduce_command` -- the ``ntoracle audit`` command that repeats a run.
+
+Every report carries :data:`CAUTIONS`: a probable prime is not a proven prime;
+passing is evidence, not a certificate; for cryptographic use defer to the
+published standards and a vetted library.
+"""
+
+from ._cautions import CAUTIONS
+from ._html import write_html
+from ._json import OPTIONAL_KEYS, SUMMARY_KEYS, write_json
+from ._reproduce import reproduce_command
+from ._terminal import Progress, summary_table
+
+__all__ = ["Progress", "summary_table", "write_json", "SUMMARY_KEYS", "OPTIONAL_KEYS",
+           "write_html", "reproduce_command", "CAUTIONS"]

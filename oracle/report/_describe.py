@@ -1,0 +1,69 @@
+"""Short human-readable texts for the values of a summary: inputs, answers, divergences."""
+
+from __future__ import annotations
+
+import json
+
+__all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of"]
+
+#: Longest text shown for one value; longer ones are cut and say how long they were.
+VALUE_LIMIT = 160
+
+
+def show_value(value: object, limit: int = VALUE_LIMIT) -> str:
+    """``value`` as compact text (JSON for lists and mappings), cut to ``limit`` characters."""
+    if value is None:
+        return ""
+    if isinstance(value, str):
+        text = value
+    elif isinstance(value, bool):
+        text = "true" if value else "false"
+    elif isinstance(value, (list, dict)):
+        text = json.dumps(value, separators=(",", ":"))
+    else:
+        text = str(value)
+    if len(text) > limit:
+        return f"{text[:limit]}... ({len(text)} characters)"
+    return text
+
+
+def show_arguments(arguments: object) -> str:
+    """The arguments of a call, as they would be written in the call: ``(2, 10)``."""
+    if isinstance(arguments, (list, tuple)):
+        return "(" + ", ".join(show_value(argument) for argument in arguments) + ")"
+    return show_value(arguments)
+
+
+def _where(arguments: object) -> str:
+    if isinstance(arguments, list) and len(arguments) == 1:
+        return show_value(arguments[0])
+    return show_arguments(arguments)
+
+
+def describe_divergence(divergence: dict | None, limit: int = 40) -> str:
+    """One line for the first divergence of a summary (answers cut to ``limit`` characters);
+    empty when there is none.  ``first divergence 1048576, last agreeing 1048575; got 16489,
+    expected 82025``, ``first missing prime 131071 in (131071, 131071)``."""
+    if not divergence:
+        return ""
+    text = str(divergence.get("kind", "divergence"))
+    if "prime" in divergence:
+        text += f" {show_value(divergence['prime'])}"
+        if divergence.get("input") is not None:
+            text += f" in {show_arguments(divergence['input'])}"
+        return text
+    text += f" {_where(divergence.get('input'))}"
+    if divergence.get("last_agreeing") is not None:
+        text += f", last agreeing {show_value(divergence['last_agreeing'])}"
+    if "got" in divergence:
+        text += (f"; got {show_value(divergence.get('got'), limit)}, "
+                 f"expected {show_value(divergence.get('expected'), limit)}")
+    return text
+
+
+def verdict_of(summary: dict) -> str:
+    """``passed``, ``failed``, or ``incomplete`` for a run that stopped before its end
+    without a finding (an incomplete run has not passed)."""
+    if not summary["passed"]:
+        return "failed"
+    return "passed" if summary["complete"] else "incomplete"

@@ -1,0 +1,424 @@
+"""Reports (oracle.report): terminal table and progress, JSON, self-contained HTML with plots.
+
+The audits reported on are real: small ``quick`` audits of the bundled demo
+library (oracle.demo), run in this process.  Values are checked against
+outside references: primecountpy (a test-only reference) for pi(x), the
+published value pi(2**20) = 82025 (OEIS A007053), the PNG signature (PNG
+specification, ISO/IEC 15948, section 5.2) and the standard library's HTML
+parser and ``html.escape``.
+"""
+
+from __future__ import annotations
+
+import base64
+import html
+import io
+import json
+import re
+import shlex
+from html.parser import HTMLParser
+
+import primecountpy
+import pytest
+
+from oracle import engine, report, targets
+from oracle._errors import InvalidInputError
+from oracle.cli import build_parser
+from oracle.demo import SCENARIO
+from oracle.report import _json, _plot_data
+
+PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"          # PNG specification, section 5.2
+HOSTILE = "<script>alert(1)</script>"
+HOSTILE_TARGET = "brindle:<img src=x onerror=alert(2)>"
+#: HTML elements without an end tag (HTML Living Standard, "void elements").
+VOID_ELEMENTS = {"meta", "img", "br", "hr", "link", "input", "source", "wbr"}
+
+
+def audit_with_records(spec: str, role: str, tmp_path_factory, seed: int = 7,
+                       maximum: int | None = None):
+    path = tmp_path_factory.mktemp("audit") / f"{role}.jsonl"
+    target = targets.python_target(spec, role_name=role, timeout=10.0)
+    try:
+        summary = engine.run_audit(target, engine.AuditOptions(
+            role=role, profile="quick", seed=seed, maximum=maximum, stream=str(path)))
+    finally:
+        target.close()
+    return summary, engine.read_records(path)
+
+
+@pytest.fixture(scope="module")
+def failing_prime_pi(tmp_path_factory):
+    entry = SCENARIO.entry("prime_pi")          # the 16-bit tallies that wrap from 2**20 on
+    return audit_with_records(entry.target, "prime_pi", tmp_path_factory, maximum=entry.maximum)
+
+
+@pytest.fixture(scope="module")
+def passing_nth_prime(tmp_path_factory):
+    entry = SCENARIO.entry("nth_prime")         # documented as correct in its domain
+    return audit_with_records(entry.target, "nth_prime", tmp_path_factory, maximum=entry.maximum)
+
+
+@pytest.fixture(scope="module")
+def failing_is_prime(tmp_path_factory):
+    entry = SCENARIO.entry("is_prime")          # too few Miller-Rabin bases
+    return audit_with_records(entry.target, "is_prime", tmp_path_factory, maximum=entry.maximum)
+
+
+def hostile_prime_pi(x):
+    """Raises with markup in its message on even x, answers markup on odd x."""
+    if x % 2 == 0:
+        raise ValueError(HOSTILE)
+    return HOSTILE
+
+
+@pytest.fixture(scope="module")
+def hostile_run(tmp_path_factory):
+    path = tmp_path_factory.mktemp("hostile") / "prime_pi.jsonl"
+    target = targets.InProcessTarget(hostile_prime_pi, timeout=5.0, description=HOSTILE_TARGET)
+    summary = engine.run_audit(target, engine.AuditOptions(
+        role="prime_pi", profile="quick", seed=1, maximum=10**4, stream=str(path)))
+    return summary, engine.read_records(path)
+
+
+@pytest.fixture(scope="module")
+def page(failing_prime_pi, passing_nth_prime, failing_is_prime, tmp_path_factory):
+    path = tmp_path_factory.mktemp("html") / "report.html"
+    report.write_html([failing_prime_pi, passing_nth_prime, failing_is_prime], path,
+                      command="ntoracle demo", title="brindle audit")
+    return path.read_text(encoding="utf-8")
+
+
+# -- the audits themselves are what the scenario says ------------------------------ #
+
+def test_the_audits_reported_on_fail_and_pass_as_documented(failing_prime_pi, passing_nth_prime):
+    assert failing_prime_pi[0]["passed"] is False
+    assert failing_prime_pi[0]["first_divergence"]["input"] == [2**20]
+    assert passing_nth_prime[0]["passed"] is True and passing_nth_prime[0]["checks"] > 100
+
+
+# -- HTML ------------------------------------------------------------------------- #
+
+class TagBalance(HTMLParser):
+    """Records unbalanced end tags and what is left open at the end."""
+
+    def __init__(self):
+        super().__init__(convert_charrefs=True)
+        self.open: list[str] = []
+        self.errors: list[str] = []
+        self.images: list[dict] = []
+        self.text: list[str] = []
+
+    def handle_starttag(self, tag, attributes):
+        if tag == "img":
+            self.images.append(dict(attributes))
+        if tag not in VOID_ELEMENTS:
+            self.open.append(tag)
+
+    def handle_startendtag(self, tag, attributes):
+        self.handle_starttag(tag, attributes)
+        if tag not in VOID_ELEMENTS:
+            self.open.pop()
+
+    def handle_endtag(self, tag):
+        if not self.open or self.open[-1] != tag:
+            self.errors.append(f"</{tag}> closes {self.open[-1] if self.open else 'nothing'}")
+        else:
+            self.open.pop()
+
+    def handle_data(self, data):
+        self.text.append(data)
+
+
+def parse(text: str) -> TagBalance:
+    parser = TagBalance()
+    parser.feed(text)
+    parser.close()
+    return parser
+
+
+def test_the_tag_checker_catches_an_unbalanced_page():
+    assert parse("<html><body><p>x</body></html>").errors
+
+
+def test_html_parses_with_balanced_tags(page):
+    parsed = parse(page)
+    assert parsed.errors == [] and parsed.open == []
+    assert page.startswith("<!DOCTYPE html>")
+
+
+def test_html_shows_summary_verdicts_seed_and_reproducing_commands(page, failing_prime_pi):
+    text = " ".join(parse(page).text)
+    assert "ntoracle demo" in text
+    assert ("ntoracle audit oracle.demo.brindle.counting:prime_pi --role prime_pi --profile quick "
+            "--seed 7 --timeout 5 --max 16777216") in text
+    for role in ("prime_pi", "nth_prime", "is_prime"):
+        assert f'id="run-{("prime_pi", "nth_prime", "is_prime").index(role)}"' in page
+        assert role in text
+    assert text.count("failed") >= 2 and "passed" in text
+    assert "first divergence 1048576, last agreeing 1048575" in text
+
+
+def test_html_failure_table_shows_got_expected_provenance(page, failing_prime_pi):
+    text = " ".join(parse(page).text)
+    # OEIS A007053: pi(2**20) = 82025; the wrapped 16-bit tally is 82025 - 65536 = 16489.
+    assert re.search(r"\(1048576\)\s*16489\s*82025\s*table:oeis-a007053", text)
+    failures = failing_prime_pi[0]["failures"]
+    assert f"Failures ({len(failures)})" in text and "more failure(s)" not in text
+
+
+def test_html_failure_table_is_capped_and_says_how_many_more(failing_prime_pi, monkeypatch):
+    monkeypatch.setattr(report._html, "FAILURE_ROWS", 10)
+    summary, records = failing_prime_pi
+    records = [r for r in records if r["type"] != "check" or r["status"] != "pass"]  # fewer to plot
+    text = report._html.render_html([(summary, records)])
+    failure_rows = re.findall(r"<tr><td>wrong</td>", text)
+    assert len(failure_rows) == 10
+    assert f"and {len(summary['failures']) - 10} more failure(s)" in text
+
+
+def test_html_shows_the_cautions(page):
+    text = " ".join(parse(page).text)
+    assert "not a proof of primality" in text
+    assert "evidence, not a certificate" in text
+    assert "published standards" in text and "vetted library" in text
+
+
+def test_html_embeds_png_plots_and_nothing_external(page):
+    images = parse(page).images
+    # prime_pi and nth_prime: difference and bounds envelope; is_prime: the verdict strip.
+    assert len(images) == 5
+    for image in images:
+        prefix = "data:image/png;base64,"
+        assert image["src"].startswith(prefix)
+        assert base64.b64decode(image["src"][len(prefix):], validate=True).startswith(PNG_SIGNATURE)
+    assert not re.search(r"<script|<link|https?://|src=\"(?!data:)", page, flags=re.IGNORECASE)
+
+
+def test_hostile_candidate_output_and_name_are_escaped(hostile_run, tmp_path):
+    summary, records = hostile_run
+    assert {failure["status"] for failure in summary["failures"]} == {"raised", "wrong-type"}
+    path = tmp_path / "hostile.html"
+    report.write_html([hostile_run], path, command=f"ntoracle audit '{HOSTILE_TARGET}'", title=HOSTILE)
+    text = path.read_text(encoding="utf-8")
+    assert HOSTILE not in text and "<img src=x" not in text
+    assert "<script" not in text.lower()
+    assert html.escape(HOSTILE) in text                       # the exception message, escaped
+    assert html.escape(HOSTILE_TARGET) in text                # the target's name, escaped
+    parsed = parse(text)
+    assert parsed.errors == [] and parsed.open == []
+    assert all(image["src"].startswith("data:image/png;base64,") for image in parsed.images)
+
+
+def test_write_html_refuses_what_is_not_a_list_of_runs(tmp_path, failing_prime_pi):
+    for runs in ([], [failing_prime_pi[0]], [(failing_prime_pi[0],)], "report", [({}, [])]):
+        with pytest.raises(InvalidInputError):
+            report.write_html(runs, tmp_path / "x.html")
+
+
+# -- what the plots show ------------------------------------------------------------ #
+
+def test_differences_are_candidate_minus_an_independent_count(failing_prime_pi):
+    summary, records = failing_prime_pi
+    from oracle.demo.brindle.counting import prime_pi as candidate
+
+    points = _plot_data.differences(records)
+    assert len(points) > 300
+    for point in points[:: max(1, len(points) // 60)]:
+        assert point.difference == candidate(point.x) - primecountpy.prime_pi(point.x)
+        assert point.failed == (point.difference != 0)
+    at_divergence = next(point for point in points if point.x == 2**20)
+    assert at_divergence.difference == 16489 - 82025                      # OEIS A007053
+    assert _plot_data.divergence_input(summary) == 2**20
+
+
+def test_envelope_holds_the_true_count_and_spans_the_inputs(failing_prime_pi):
+    _, records = failing_prime_pi
+    points = _plot_data.envelope("prime_pi", records)
+    assert 10 <= len(points) <= _plot_data.ENVELOPE_POINTS
+    for point in points:
+        true = primecountpy.prime_pi(point.x)
+        assert point.exact and point.reference == true
+        assert point.lower <= true <= point.upper
+    assert any(point.failed and not point.lower <= point.got <= point.upper for point in points)
+    assert min(point.x for point in points) < 10**3 and max(point.x for point in points) > 10**6
+
+
+def test_statuses_place_each_check_at_its_largest_argument(failing_is_prime):
+    _, records = failing_is_prime
+    points = _plot_data.statuses(records)
+    checks = [r for r in records if r["type"] == "check" and max(r["arguments"]) >= 1]
+    assert len(points) == len(checks)
+    assert sorted(p.size for p in points if p.status == "wrong") == \
+        sorted(max(r["arguments"]) for r in checks if r["status"] == "wrong")
+
+
+def test_spread_keeps_first_last_and_at_most_the_limit():
+    items = list(range(1000))
+    kept = _plot_data.spread(items, 7)
+    assert len(kept) == 7 and kept[0] == 0 and kept[-1] == 999
+    assert all(166 <= later - earlier <= 167 for earlier, later in zip(kept, kept[1:]))
+    assert _plot_data.spread(items[:5], 7) == items[:5] and _plot_data.spread(items, 0) == []
+
+
+def test_huge_answers_are_drawn_at_the_plot_limit():
+    assert _plot_data.as_float(10**400) == _plot_data.PLOT_LIMIT
+    assert _plot_data.as_float(-(10**400)) == -_plot_data.PLOT_LIMIT
+    assert _plot_data.as_float(2**64) == 18446744073709551616.0
+
+
+# -- JSON ------------------------------------------------------------------------- #
+
+def test_json_round_trips_a_list_with_the_documented_keys_in_order(
+        tmp_path, failing_prime_pi, passing_nth_prime):
+    summaries = [failing_prime_pi[0], passing_nth_prime[0]]
+    path = tmp_path / "out" / "summary.json"
+    report.write_json(summaries, path)
+    loaded = json.loads(path.read_text(encoding="utf-8"))
+    assert loaded == json.loads(json.dumps(summaries))
+    for summary in loaded:
+        assert tuple(summary)[:len(report.SUMMARY_KEYS)] == report.SUMMARY_KEYS
+        assert set(summary) - set(report.SUMMARY_KEYS) <= set(report.OPTIONAL_KEYS)
+    first = loaded[0]["failures"][0]
+    assert type(first["arguments"][0]) is int and first["expected"] == 82025   # OEIS A007053
+
+
+def test_json_of_one_audit_is_one_object(tmp_path, passing_nth_prime):
+    path = tmp_path / "one.json"
+    report.write_json(passing_nth_prime[0], path)
+    loaded = json.loads(path.read_text(encoding="utf-8"))
+    assert isinstance(loaded, dict) and loaded["passed"] is True and loaded["failures"] == []
+
+
+def test_json_keeps_integers_beyond_64_bits_exact(tmp_path, passing_nth_prime):
+    summary = dict(passing_nth_prime[0], seed=2**130 + 1)
+    path = tmp_path / "big.json"
+    report.write_json(summary, path)
+    assert json.loads(path.read_text(encoding="utf-8"))["seed"] == 2**130 + 1
+
+
+def test_every_summary_key_is_documented():
+    for key in report.SUMMARY_KEYS + report.OPTIONAL_KEYS:
+        assert f"``{key}``\n" in _json.__doc__
+
+
+def test_json_refuses_what_is_not_a_summary(tmp_path, passing_nth_prime):
+    incomplete = {key: value for key, value in passing_nth_prime[0].items() if key != "seed"}
+    for bad in (incomplete, [incomplete], "summary", 3):
+        with pytest.raises(InvalidInputError):
+            report.write_json(bad, tmp_path / "bad.json")
+
+
+# -- the terminal ------------------------------------------------------------------- #
+
+class TerminalStream(io.StringIO):
+    """A stream that says it is a terminal."""
+
+    def isatty(self):
+        return True
+
+
+ANSI = re.compile(r"\x1b\[")
+
+
+def test_summary_table_on_a_pipe_is_plain_text(failing_prime_pi, passing_nth_prime):
+    stream = io.StringIO()
+    report.summary_table([failing_prime_pi[0], passing_nth_prime[0]], stream)
+    text = stream.getvalue()
+    assert not ANSI.search(text)
+    summary = failing_prime_pi[0]
+    row = next(line for line in text.splitlines() if line.strip().startswith("prime_pi"))
+    assert re.search(rf"prime_pi\s+7\s+{summary['checks']}\s+{summary['passed_checks']}\s+"
+                     rf"{len(summary['failures'])}\s+\d+\s+first divergence 1048576", row)
+    assert "FAILED" in row
+    assert "PASSED" in next(line for line in text.splitlines() if "nth_prime" in line)
+    assert "not a proof of primality" in text
+
+
+def test_summary_table_colours_a_terminal_unless_no_color(failing_prime_pi, monkeypatch):
+    monkeypatch.delenv("NO_COLOR", raising=False)
+    coloured = TerminalStream()
+    report.summary_table(failing_prime_pi[0], coloured)
+    assert ANSI.search(coloured.getvalue())
+    monkeypatch.setenv("NO_COLOR", "1")
+    plain = TerminalStream()
+    report.summary_table(failing_prime_pi[0], plain)
+    assert not ANSI.search(plain.getvalue()) and "FAILED" in plain.getvalue()
+
+
+def test_a_candidates_markup_is_not_interpreted_by_the_table(hostile_run):
+    stream = io.StringIO()
+    summary = dict(hostile_run[0], role="[bold]prime_pi[/bold]")
+    report.summary_table(summary, stream, colour=True)
+    assert "[bold]prime_pi[/bold]" in stream.getvalue()
+
+
+def test_quiet_mode_prints_nothing_but_the_summary(failing_prime_pi):
+    alone = io.StringIO()
+    report.summary_table(failing_prime_pi[0], alone)
+    stream = io.StringIO()
+    with report.Progress(total=50, description="prime_pi", quiet=True, stream=stream,
+                         live=True, delay=0) as progress:
+        for _ in range(50):
+            progress.advance()
+    assert stream.getvalue() == "" and progress.completed == 50
+    report.summary_table(failing_prime_pi[0], stream)
+    assert stream.getvalue() == alone.getvalue()
+
+
+def test_progress_draws_count_and_remaining_time_when_live():
+    stream = io.StringIO()
+    with report.Progress(total=None, description="twin_pi", stream=stream, live=True,
+                         delay=0) as progress:
+        progress.set_total(40)
+        for _ in range(40):
+            progress.observe({"type": "check"})
+        progress.observe({"type": "divergence"})
+    text = stream.getvalue()
+    assert "twin_pi" in text and "40/40" in text and "remaining" in text
+    assert progress.completed == 40
+
+
+def test_progress_is_silent_on_a_pipe_and_before_its_delay():
+    piped = io.StringIO()
+    with report.Progress(total=5, stream=piped, delay=0) as progress:
+        progress.advance(5)
+    early = TerminalStream()
+    with report.Progress(total=5, stream=early, delay=3600) as progress:
+        progress.advance(5)
+    assert piped.getvalue() == "" and early.getvalue() == ""
+
+
+@pytest.mark.parametrize("arguments", [dict(total=-1), dict(total=2.5), dict(delay=-1),
+                                       dict(delay="1")])
+def test_progress_refuses_bad_arguments(arguments):
+    with pytest.raises(InvalidInputError):
+        report.Progress(**arguments)
+
+
+def test_progress_refuses_a_bad_step():
+    with report.Progress(total=3, quiet=True) as progress, pytest.raises(InvalidInputError):
+        progress.advance(1.5)
+
+
+# -- the command that repeats a run ------------------------------------------------- #
+
+def test_reproduce_command_is_understood_by_the_audit_command(failing_prime_pi):
+    start = failing_prime_pi[1][0]
+    command = report.reproduce_command(start)
+    parsed = build_parser().parse_args(shlex.split(command)[1:])
+    assert parsed.command == "audit" and parsed.target == SCENARIO.entry("prime_pi").target
+    assert (parsed.role, parsed.profile, parsed.seed, parsed.maximum) == \
+        ("prime_pi", "quick", "7", str(2**24))
+    assert parsed.timeout == 5.0              # the quick profile's timeout, as recorded
+
+
+def test_reproduce_command_of_an_executable_with_conventions():
+    start = {"target": "./my_primes --fast", "role": "primes_in", "profile": "ci", "seed": 5,
+             "timeout": 2.5, "maximum": None, "isolated": True,
+             "conventions": {"primes_range": "half-open", "factor_shape": "any",
+                             "invalid_input": "raise"}}
+    command = report.reproduce_command(start)
+    assert command == ("ntoracle audit --exec './my_primes --fast' --role primes_in --profile ci "
+                       "--seed 5 --timeout 2.5 --invalid-input raise --half-open")
+    parsed = build_parser().parse_args(shlex.split(command)[1:])
+    assert parsed.exec_command == "./my_primes --fast" and parsed.half_open
