@@ -58,7 +58,18 @@ def build_parser() -> argparse.ArgumentParser:
     bounds.add_argument("n", metavar="N", help="an integer: 10**30, 2**80, ...")
     bounds.add_argument("--json", action="store_true", help="print one JSON object")
 
-    commands.add_parser("demo", help="a tour of the oracle on a handful of questions",
+    demo = commands.add_parser(
+        "demo", help="audit the bundled legacy library (an invented scenario) and write a report",
+        description="Audit every routine of the bundled 'brindle' library (the invented "
+                    "Brindlewick observatory's) with the ci profile, print the findings and first "
+                    "divergences, and write HTML and JSON reports. Exit 0 when the audit finds "
+                    "exactly the defects the scenario documents.")
+    demo.add_argument("--seed", default=None, metavar="N", help="sampling seed (default 1987)")
+    demo.add_argument("--report", default="ntoracle-report", metavar="DIR",
+                      help="folder for report.html, audit.json and the results (default ./ntoracle-report)")
+    demo.add_argument("--quiet", action="store_true", help="print only the summary table")
+
+    commands.add_parser("tour", help="the oracle answers a handful of questions, with provenance",
                         description="Ask the oracle a handful of questions and show each "
                                     "answer with its provenance.")
     _add_audit_parser(commands)
@@ -141,7 +152,7 @@ def main(argv: list[str] | None = None) -> int:
     if arguments.command is None:
         parser.print_help()
         return EXIT_USAGE
-    handler = {"value": _value, "bounds": _bounds, "demo": _demo, "audit": _audit,
+    handler = {"value": _value, "bounds": _bounds, "demo": _demo, "tour": _tour, "audit": _audit,
                "replay": _replay}[arguments.command]
     try:
         return handler(arguments)
@@ -214,10 +225,19 @@ _TOUR = (
 
 
 def _demo(arguments) -> int:
+    from .demo import DEMO_SEED, run_demo
+
+    seed = parse_integer(arguments.seed) if arguments.seed is not None else DEMO_SEED
+    if seed < 0:
+        raise InvalidInputError(f"--seed {seed}: must be >= 0")
+    return run_demo(arguments.report, seed=seed, quiet=arguments.quiet)
+
+
+def _tour(arguments) -> int:
     from . import facade
     from .exact import sieve
 
-    print("ntoracle demo: the oracle answers a handful of questions, each with its provenance.")
+    print("ntoracle tour: the oracle answers a handful of questions, each with its provenance.")
     print(f"sieve engine: {sieve.active_engine()}\n")
     for function, n, comment in _TOUR:
         started = time.perf_counter()

@@ -26,6 +26,7 @@ not be used for cryptography -- defer to the published standards and a vetted
 library there.
 """
 
+from ._run import DEMO_SEED, run_demo
 from ._scenario import SCENARIO, Defect, Scenario, SoundRole
 
-__all__ = ["SCENARIO", "Defect", "Scenario", "SoundRole"]
+__all__ = ["SCENARIO", "Defect", "Scenario", "SoundRole", "run_demo", "DEMO_SEED"]

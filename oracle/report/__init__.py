@@ -20,10 +20,11 @@ published standards and a vetted library.
 """
 
 from ._cautions import CAUTIONS
+from ._describe import describe_divergence
 from ._html import write_html
 from ._json import OPTIONAL_KEYS, SUMMARY_KEYS, write_json
 from ._reproduce import reproduce_command
 from ._terminal import Progress, summary_table
 
 __all__ = ["Progress", "summary_table", "write_json", "SUMMARY_KEYS", "OPTIONAL_KEYS",
-           "write_html", "reproduce_command", "CAUTIONS"]
+           "write_html", "reproduce_command", "describe_divergence", "CAUTIONS"]

@@ -41,7 +41,7 @@ def _figure(height: float, left: float = 0.11):
 
 def _png(figure) -> bytes:
     buffer = io.BytesIO()
-    figure.savefig(buffer, format="png", dpi=DPI)
+    figure.savefig(buffer, format="png", dpi=DPI, bbox_inches="tight")
     return buffer.getvalue()
 
 
