@@ -1,0 +1,246 @@
+"""The ntoracle pytest plugin (entry point group ``pytest11``, name ``ntoracle``).
+
+Configure one or more targets and the bundled suites run as test items::
+
+    pytest --ntoracle-target prime_pi=mylib.count:prime_pi --ntoracle-profile ci
+
+or, in ``pyproject.toml``::
+
+    [tool.pytest.ini_options]
+    ntoracle_targets = '''
+        prime_pi = mylib.count:prime_pi
+        is_prime = mylib.primality:is_prime
+    '''
+    ntoracle_profile = "ci"
+
+The command line beats the ini file, which beats the default (profile
+``quick``, a random seed printed in the report header).  User suite files
+named ``*.ntoracle.yaml`` are collected wherever pytest looks for tests
+(format: :mod:`oracle.pytest_support._suites`).  Fixtures: ``ntoracle`` (the
+oracle facade), ``ntoracle_bounds``, ``ntoracle_seed``, ``ntoracle_points``
+(the sampler at the session seed) and ``ntoracle_check`` (an assertion helper
+with the messages of the check items).  ``--ntoracle-hypothesis-profile
+ntoracle-ci`` (or the ini key of that name) loads the hypothesis settings
+profile of :mod:`oracle.strategies`; without it no hypothesis profile is loaded.
+
+With no target and no suite file the plugin adds nothing and imports nothing
+of the library: every hook below imports what it needs when it runs.
+
+Passing these checks is evidence, not a certificate; a probable prime is not a
+proven prime; for cryptographic use defer to the published standards and a
+vetted library.
+"""
+
+from __future__ import annotations
+
+import pytest
+
+#: User suite files are the files whose names end so (``pi.ntoracle.yaml``).
+SUITE_SUFFIX = ".ntoracle.yaml"
+
+_HELP_TARGET = "ROLE=package.module:function: a Python target to check (repeatable)"
+_HELP_EXEC = "ROLE=CMD ARGS: an executable speaking the line protocol (repeatable)"
+_HELP_PROFILE = "profile of the checks: quick, ci, deep or exhaustive (default quick)"
+_HELP_SEED = "seed of the sampled points (default: drawn at random and printed in the header)"
+_HELP_REPORT = "write the records of every check item and a summary.json into DIR"
+_HELP_HYPOTHESIS = "load this hypothesis settings profile of oracle.strategies (ntoracle-ci, ntoracle-dev)"
+_HELP_TARGETS_INI = "targets to check, one 'ROLE = package.module:function' a line"
+
+
+def pytest_addoption(parser):
+    group = parser.getgroup("ntoracle", "checks against the ntoracle reference oracle")
+    group.addoption("--ntoracle-target", action="append", metavar="ROLE=MODULE:FUNCTION",
+                    dest="ntoracle_target", help=_HELP_TARGET)
+    group.addoption("--ntoracle-exec", action="append", metavar="ROLE=CMD ARGS",
+                    dest="ntoracle_exec", help=_HELP_EXEC)
+    group.addoption("--ntoracle-profile", metavar="P", dest="ntoracle_profile", help=_HELP_PROFILE)
+    group.addoption("--ntoracle-seed", metavar="N", dest="ntoracle_seed", help=_HELP_SEED)
+    group.addoption("--ntoracle-report", metavar="DIR", dest="ntoracle_report", help=_HELP_REPORT)
+    group.addoption("--ntoracle-hypothesis-profile", metavar="NAME",
+                    dest="ntoracle_hypothesis_profile", help=_HELP_HYPOTHESIS)
+    parser.addini("ntoracle_targets", _HELP_TARGETS_INI, type="linelist", default=[])
+    parser.addini("ntoracle_profile", _HELP_PROFILE, default="")
+    parser.addini("ntoracle_seed", _HELP_SEED, default="")
+    parser.addini("ntoracle_hypothesis_profile", _HELP_HYPOTHESIS, default="")
+
+
+@pytest.hookimpl(tryfirst=True)
+def pytest_configure(config):
+    from .pytest_support import _settings
+
+    inherited = getattr(config, "workerinput", {}).get("ntoracle_seed")
+    settings = _settings.resolve(config, inherited_seed=inherited)
+    if settings.errors:
+        raise pytest.UsageError("ntoracle: " + "\nntoracle: ".join(settings.errors))
+    config.stash[_settings.SETTINGS] = settings
+    config.addinivalue_line("markers", "ntoracle: a check of a target against the ntoracle oracle")
+    if settings.active:
+        _check_targets(settings)
+        from .pytest_support._nodes import TargetPool
+
+        config.stash[_settings.POOL] = TargetPool()
+        if settings.report_dir and not hasattr(config, "workerinput"):
+            from .pytest_support._nodes import ReportWriter
+
+            config.pluginmanager.register(ReportWriter(settings), "ntoracle-report")
+    _hypothesis_profiles(config, settings)
+
+
+def _check_targets(settings) -> None:
+    """A Python target that cannot be imported, or a command that cannot be found, is a usage
+    error, reported before any test."""
+    import shlex
+    import shutil
+
+    from .targets import load_callable
+    from ._errors import InvalidInputError
+
+    for target in settings.targets:
+        if target.kind == "exec":
+            argv = shlex.split(target.spec)
+            if not argv or shutil.which(argv[0]) is None:
+                raise pytest.UsageError(f"ntoracle: {target.source}={target.role}={target.spec}: "
+                                        "no such command")
+        else:
+            try:
+                load_callable(target.spec)
+            except InvalidInputError as error:
+                raise pytest.UsageError(f"ntoracle: {target.source}: {error} (is its folder on "
+                                        "sys.path? pytest's 'pythonpath' ini key adds it)") from None
+
+
+def _hypothesis_profiles(config, settings) -> None:
+    asked = config.getoption("hypothesis_profile", None)
+    if settings.hypothesis_profile or (asked and str(asked).startswith("ntoracle-")):
+        from .strategies import register_profiles
+
+        register_profiles()
+    if settings.hypothesis_profile:
+        from hypothesis import settings as hypothesis_settings
+        from hypothesis.errors import InvalidArgument
+
+        try:
+            hypothesis_settings.load_profile(settings.hypothesis_profile)
+        except InvalidArgument as error:
+            raise pytest.UsageError(f"ntoracle: hypothesis profile {settings.hypothesis_profile!r}: "
+                                    f"{error}") from None
+
+
+@pytest.hookimpl(optionalhook=True)
+def pytest_configure_node(node):
+    """pytest-xdist: every worker draws its points from the controller's seed."""
+    from .pytest_support._settings import SETTINGS
+
+    node.workerinput["ntoracle_seed"] = node.config.stash[SETTINGS].seed
+
+
+def pytest_report_header(config):
+    from .pytest_support._settings import SETTINGS
+
+    settings = config.stash.get(SETTINGS, None)
+    if settings is None or not settings.active:
+        return None
+    targets = ", ".join(f"{t.role}={t.spec}" for t in settings.targets)
+    return [f"ntoracle: seed {settings.seed} ({settings.seed_source}), profile {settings.profile}",
+            f"ntoracle: targets {targets}"]
+
+
+def pytest_collect_file(file_path, parent):
+    if file_path.name.endswith(SUITE_SUFFIX):
+        from .pytest_support._nodes import SuiteFile
+
+        return SuiteFile.from_parent(parent, path=file_path)
+    return None
+
+
+@pytest.hookimpl(tryfirst=True)
+def pytest_collection_modifyitems(session, config, items):
+    """With targets configured, the bundled suites join the collected items (before ``-k``,
+    ``-m``, ``--lf`` and ``--deselect`` choose among them)."""
+    from .pytest_support._settings import SETTINGS
+
+    settings = config.stash.get(SETTINGS, None)
+    if settings is None or not settings.active:
+        return
+    from .pytest_support._nodes import BundledSuites
+
+    root = BundledSuites.from_parent(session, name="ntoracle", nodeid="ntoracle")
+    items.extend(_items_of(root, session))
+
+
+def _items_of(collector, session):
+    report = collector.ihook.pytest_make_collect_report(collector=collector)
+    session.ihook.pytest_collectreport(report=report)
+    for node in report.result:
+        if isinstance(node, pytest.Item):
+            yield node
+        else:
+            yield from _items_of(node, session)
+
+
+def pytest_sessionfinish(session):
+    from .pytest_support._settings import POOL
+
+    pool = session.config.stash.get(POOL, None)
+    if pool is not None:
+        pool.close()
+
+
+def pytest_terminal_summary(terminalreporter, config):
+    from .pytest_support._settings import SETTINGS
+
+    settings = config.stash.get(SETTINGS, None)
+    if settings is None or not settings.active:
+        return
+    from .report import CAUTIONS
+
+    terminalreporter.section("ntoracle")
+    terminalreporter.write_line(f"seed {settings.seed}, profile {settings.profile}: repeat with "
+                                f"--ntoracle-seed {settings.seed} --ntoracle-profile {settings.profile}")
+    for caution in CAUTIONS:
+        terminalreporter.write_line(f"caution: {caution}")
+
+
+@pytest.fixture(scope="session")
+def ntoracle():
+    """The oracle facade (``import oracle``): exact values with provenance."""
+    import oracle
+
+    return oracle
+
+
+@pytest.fixture(scope="session")
+def ntoracle_bounds():
+    """The proven bounds (:mod:`oracle.bounds`)."""
+    from oracle import bounds
+
+    return bounds
+
+
+@pytest.fixture(scope="session")
+def ntoracle_seed(pytestconfig):
+    """The session seed (``--ntoracle-seed``, ini ``ntoracle_seed``, or drawn and printed)."""
+    from .pytest_support._settings import SETTINGS
+
+    return pytestconfig.stash[SETTINGS].seed
+
+
+@pytest.fixture(scope="session")
+def ntoracle_points(pytestconfig):
+    """``ntoracle_points(role, family=None, profile=None)``: the sampler's points at the session seed."""
+    from .pytest_support._fixtures import PointSampler
+    from .pytest_support._settings import SETTINGS
+
+    settings = pytestconfig.stash[SETTINGS]
+    return PointSampler(settings.seed, settings.profile)
+
+
+@pytest.fixture(scope="session")
+def ntoracle_check(pytestconfig):
+    """``ntoracle_check(role, function, points)`` and ``ntoracle_check.answer(role, arguments, got)``:
+    fail the test with input, got, expected, provenance and seed when the oracle disagrees."""
+    from .pytest_support._fixtures import Checker
+    from .pytest_support._settings import SETTINGS
+
+    settings = pytestconfig.stash[SETTINGS]
+    return Checker(settings.seed, settings.profile)

@@ -1,0 +1,295 @@
+"""The pytest nodes: suite collectors and check items.
+
+The tree of one configured run::
+
+    ntoracle                                  (bundled suites, when targets are configured)
+      prime_pi                                (one collector per suite and target; the
+        exhaustive[0..999]                     target's spec is added when a role has several)
+        boundaries[255..65538]                (one item per group of points)
+    tests/pi.ntoracle.yaml                    (a user suite file)
+      prime_pi
+        small[10]
+
+Each item asks its target at its points and judges the answers with the audit
+engine (:mod:`._judging`); items share nothing but the per-process pool of
+targets, so pytest-xdist may run them in any order on any worker.
+"""
+
+from __future__ import annotations
+
+import hashlib
+import json
+import os
+import re
+import warnings
+from importlib import resources
+
+import pytest
+
+from ._settings import POOL, SETTINGS, Settings, TargetSetting
+from ._suites import Suite, SuiteError, groups_of, load_suite, small_exhaustive
+
+__all__ = ["SETTINGS", "POOL", "TargetPool", "BundledSuites", "SuiteFile", "CheckItem",
+           "SuiteErrorItem", "ReportWriter", "bundled_suite_paths"]
+
+_SAMPLES = pytest.StashKey[dict]()
+#: Characters kept in names made from a target's spec and in file names made from node ids.
+_UNSAFE = re.compile(r"[^A-Za-z0-9_.\-]+")
+
+
+def bundled_suite_paths() -> list:
+    """The suites shipped in ``oracle.suites``, sorted by name."""
+    folder = resources.files("oracle.suites")
+    return sorted((entry for entry in folder.iterdir() if entry.name.endswith(".yaml")),
+                  key=lambda entry: entry.name)
+
+
+class TargetPool:
+    """The targets of this process, made on first use and closed at the end of the session."""
+
+    def __init__(self):
+        self._targets: dict[tuple, object] = {}
+
+    def get(self, kind: str, spec: str, role: str, timeout: float):
+        from .. import targets
+
+        key = (kind, spec, role, timeout)
+        if key not in self._targets:
+            if kind == "python":
+                self._targets[key] = targets.python_target(spec, role_name=role, timeout=timeout)
+            else:
+                self._targets[key] = targets.exec_target(spec, role_name=role, timeout=timeout)
+        return self._targets[key]
+
+    def close(self) -> None:
+        for target in self._targets.values():
+            target.close()
+        self._targets.clear()
+
+
+def _sampled(config, role: str, profile, seed: int):
+    """``family -> points`` of the sampler for ``role`` (drawn once per process)."""
+    from .. import roles, sampling
+
+    cache = config.stash.setdefault(_SAMPLES, {})
+    key = (role, profile.name, seed)
+    if key not in cache:
+        by_family: dict[str, list] = {}
+        for sample in sampling.sample(roles.get(role), small_exhaustive(profile), seed):
+            by_family.setdefault(sample.family, []).append(sample.arguments)
+        cache[key] = by_family
+    return lambda family: cache[key].get(family, [])
+
+
+class _TargetCollector(pytest.Collector):
+    """The items of one suite against one target."""
+
+    def __init__(self, *, suite: Suite, target: TargetSetting, **kwargs):
+        super().__init__(**kwargs)
+        self.suite, self.target = suite, target
+
+    def collect(self):
+        from .. import sampling
+
+        settings = self.config.stash[SETTINGS]
+        profile = sampling.profile(self.suite.profile or settings.profile)
+        sampled = _sampled(self.config, self.suite.role, profile, settings.seed)
+        for case in self.suite.cases:
+            for group in groups_of(self.suite, case, profile=profile, seed=settings.seed,
+                                   sampled=sampled):
+                yield CheckItem.from_parent(self, name=f"{group.case}[{group.label}]", group=group,
+                                            nodeid=_item_id(self, group))
+
+    def reportinfo(self):
+        return self.suite.path, self.suite.line - 1, f"{self.suite.name} ({self.target.spec})"
+
+
+def _item_id(parent, group) -> str:
+    """The item's node id, written out so that pytest reads the group's label as the item's
+    parameters (as for its own parametrised tests) and ``--lf`` recognises the ids it stored."""
+    return f"{parent.nodeid}::{group.case}[{group.label}]"
+
+
+def _target_children(parent, suite: Suite, targets: list[TargetSetting]):
+    """One collector per target: named after the role, and after the target too when the role
+    has several (``prime_pi@mylib.count_prime_pi``; no brackets, which would end a node id)."""
+    names: set[str] = set()
+    for index, target in enumerate(targets, start=1):
+        name = suite.role
+        if len(targets) > 1:
+            name = f"{suite.role}@{_UNSAFE.sub('_', target.spec)}"
+            name = name if name not in names else f"{name}-{index}"
+        names.add(name)
+        yield _TargetCollector.from_parent(parent, name=name, suite=suite, target=target)
+
+
+class BundledSuites(pytest.Collector):
+    """The suites shipped with ntoracle, run against every configured target of their role."""
+
+    def collect(self):
+        settings = self.config.stash[SETTINGS]
+        for entry in bundled_suite_paths():
+            suite = load_suite(entry)
+            yield from _target_children(self, suite, settings.targets_for(suite.role))
+
+    def reportinfo(self):
+        return self.path, None, "ntoracle bundled suites"
+
+
+class SuiteFile(pytest.File):
+    """A user suite file (``*.ntoracle.yaml``)."""
+
+    def collect(self):
+        try:
+            suite = load_suite(self.path)
+        except SuiteError as error:
+            yield SuiteErrorItem.from_parent(self, name="suite-error", error=error)
+            return
+        if suite.target is not None:
+            kind, spec = suite.target
+            targets = [TargetSetting(suite.role, kind, spec, f"{self.path.name}: target")]
+        else:
+            targets = self.config.stash[SETTINGS].targets_for(suite.role)
+        if not targets:
+            yield SuiteErrorItem.from_parent(
+                self, name="no-target", error=None,
+                skip_reason=f"{self.path.name}: no target for role {suite.role}: name one in the suite "
+                            f"('target:' or 'exec:') or with --ntoracle-target {suite.role}=...")
+            return
+        yield from _target_children(self, suite, targets)
+
+
+class SuiteErrorItem(pytest.Item):
+    """Stands for a suite that cannot be collected: one clear error, the other tests still run
+    (a pytest collection error would interrupt the whole session)."""
+
+    def __init__(self, *, error: SuiteError | None, skip_reason: str | None = None, **kwargs):
+        super().__init__(**kwargs)
+        self.error, self.skip_reason = error, skip_reason
+
+    def setup(self):
+        if self.skip_reason:
+            pytest.skip(self.skip_reason)
+        pytest.fail(f"malformed ntoracle suite: {self.error}", pytrace=False)
+
+    def runtest(self):                                   # never reached: setup fails
+        pytest.fail(f"malformed ntoracle suite: {self.error}", pytrace=False)
+
+    def reportinfo(self):
+        line = self.error.line - 1 if self.error and self.error.line else None
+        return self.path, line, f"suite {self.path.name}"
+
+
+class PointsNotRun(UserWarning):
+    """Some points of a passing item were not run (above ``max``, out of the oracle's reach,
+    time budget spent): the item passed on the others only."""
+
+
+class CheckFailed(Exception):
+    """A check item found the target wrong; the summary is attached."""
+
+    def __init__(self, summary: dict):
+        super().__init__("ntoracle check failed")
+        self.summary = summary
+
+
+class CheckItem(pytest.Item):
+    """One group of points of a suite, asked of one target and judged by the oracle."""
+
+    def __init__(self, *, group, **kwargs):
+        super().__init__(**kwargs)
+        self.group = group
+        self.add_marker("ntoracle")
+
+    @property
+    def suite(self) -> Suite:
+        return self.parent.suite
+
+    @property
+    def target_setting(self) -> TargetSetting:
+        return self.parent.target
+
+    def runtest(self):
+        from .. import roles, sampling
+        from .._errors import InvalidInputError
+        from ._judging import judge_invalid_inputs, judge_points
+
+        settings = self.config.stash[SETTINGS]
+        suite, setting = self.suite, self.target_setting
+        profile = sampling.profile(suite.profile or settings.profile)
+        timeout = suite.timeout or profile.timeout
+        try:
+            target = self.config.stash.setdefault(POOL, TargetPool()).get(setting.kind, setting.spec, suite.role, timeout)
+        except InvalidInputError as error:
+            pytest.fail(f"ntoracle: {setting.source}: {error}", pytrace=False)
+        points = self.group.arguments(roles.get(suite.role).arity)
+        common = dict(role=suite.role, profile=profile.name, seed=settings.seed, points=points,
+                      timeout=timeout, conventions=suite.conventions, stream=self._stream_path())
+        try:
+            if self.group.kind == "invalid":
+                summary = judge_invalid_inputs(target, **common)
+            else:
+                summary = judge_points(target, maximum=suite.maximum, **common)
+        except OSError as error:                          # an executable that cannot be started
+            pytest.fail(f"ntoracle: {setting.source}: cannot run {setting.spec!r}: {error}", pytrace=False)
+        self.user_properties += [("ntoracle_seed", settings.seed), ("ntoracle_checks", summary["checks"]),
+                                 ("ntoracle_findings", len(summary["failures"]))]
+        if summary["failures"]:
+            raise CheckFailed(summary)
+        reasons = "; ".join(f"{count} point(s): {reason}" for reason, count in summary["skipped"].items())
+        if summary["checks"] == 0:
+            pytest.skip(f"no point checked ({reasons or 'no points'}); skipped, not passed")
+        if reasons:
+            warnings.warn(PointsNotRun(f"{self.nodeid}: not run, so not passed: {reasons}"))
+
+    def _stream_path(self) -> str | None:
+        directory = self.config.stash[SETTINGS].report_dir
+        if not directory:
+            return None
+        digest = hashlib.sha1(self.nodeid.encode()).hexdigest()[:10]
+        name = _UNSAFE.sub("_", self.nodeid.replace("::", "--"))[-160:]
+        return os.path.join(directory, "records", f"{name}-{digest}.jsonl")
+
+    def repr_failure(self, excinfo, style=None):
+        if isinstance(excinfo.value, CheckFailed):
+            from ._messages import failure_message
+
+            settings = self.config.stash[SETTINGS]
+            profile = self.suite.profile or settings.profile
+            return failure_message(excinfo.value.summary, role=self.suite.role,
+                                   target=self.target_setting.spec, case=self.group.case,
+                                   seed=settings.seed, profile=profile,
+                                   reproduce=f"pytest --ntoracle-seed {settings.seed} "
+                                             f"--ntoracle-profile {profile} -k '{self._keyword()}'")
+        return super().repr_failure(excinfo, style)
+
+    def _keyword(self) -> str:
+        """A ``-k`` expression selecting this item (``-k`` words cannot hold a comma)."""
+        return self.name if "," not in self.name else f"{self.suite.role} and {self.group.case}"
+
+    def reportinfo(self):
+        return self.path, self.group.line - 1, f"{self.suite.role}: {self.name} ({self.target_setting.spec})"
+
+
+class ReportWriter:
+    """Registered with ``--ntoracle-report DIR`` (on the pytest-xdist controller, or the only
+    process): collects the outcome of every item and writes ``DIR/summary.json`` at the end;
+    the items themselves write their records to ``DIR/records/<item>.jsonl``."""
+
+    def __init__(self, settings: Settings):
+        self.settings = settings
+        self.outcomes: dict[str, str] = {}
+
+    def pytest_runtest_logreport(self, report):
+        if report.when == "call" or report.outcome != "passed":
+            self.outcomes[report.nodeid] = report.outcome
+
+    def pytest_sessionfinish(self, session):
+        directory = self.settings.report_dir
+        os.makedirs(directory, exist_ok=True)
+        data = {"seed": self.settings.seed, "profile": self.settings.profile,
+                "targets": [{"role": t.role, "kind": t.kind, "spec": t.spec}
+                            for t in self.settings.targets],
+                "items": self.outcomes}
+        with open(os.path.join(directory, "summary.json"), "w", encoding="utf-8") as handle:
+            json.dump(data, handle, indent=1)

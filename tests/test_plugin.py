@@ -1,0 +1,371 @@
+"""The pytest plugin, run through pytest itself (the ``pytester`` fixture).
+
+References outside the project: python-flint's ``fmpz.is_prime`` (a proven
+primality test) as the correct candidate; Korselt's criterion (1899) for the
+defective Fermat candidate, fooled by the Carmichael number 29341 = 13 * 37 * 61
+(OEIS A002997).
+"""
+
+from __future__ import annotations
+
+import importlib.metadata
+import json
+import sys
+import tomllib
+import xml.etree.ElementTree as ElementTree
+from pathlib import Path
+
+import pytest
+
+from oracle import roles, sampling
+from oracle.pytest_support import _settings
+from oracle.pytest_support._nodes import bundled_suite_paths
+from oracle.pytest_support._suites import SuiteError, groups_of, load_suite, parse_suite
+
+pytest_plugins = ["pytester"]
+
+REPOSITORY = Path(__file__).resolve().parent.parent
+
+CORRECT_IS_PRIME = '''
+import flint
+
+def is_prime(n):
+    return n >= 2 and bool(flint.fmpz(n).is_prime())
+'''
+
+# Fermat's test to the bases 2, 3, 5, 7: every Carmichael number without a factor <= 7 passes
+# (Korselt 1899); the smallest is 29341 = 13 * 37 * 61, then 46657 = 13 * 37 * 97 (OEIS A002997).
+# The sampler lists 29341 among the pseudoprimes, so the carmichael case starts at 46657.
+FERMAT_IS_PRIME = '''
+def is_prime(n):
+    if n < 2:
+        return False
+    for p in (2, 3, 5, 7):
+        if n % p == 0:
+            return n == p
+    return all(pow(a, n - 1, n) == 1 for a in (2, 3, 5, 7))
+'''
+
+
+def _entry_point_installed() -> bool:
+    return any(ep.name == "ntoracle" and ep.value == "oracle.plugin"
+               for ep in importlib.metadata.entry_points(group="pytest11"))
+
+
+#: Load the plugin explicitly until the ``pytest11`` entry point is installed (twice would clash).
+PLUGIN = [] if _entry_point_installed() else ["-p", "oracle.plugin"]
+
+
+@pytest.fixture
+def project(pytester):
+    pytester.makeini("[pytest]\npythonpath = .\n")
+    pytester.makepyfile(good_prime=CORRECT_IS_PRIME, fermat_prime=FERMAT_IS_PRIME)
+    return pytester
+
+
+def _outcomes_by_id(junit: Path) -> dict[str, str]:
+    outcomes = {}
+    for case in ElementTree.parse(junit).getroot().iter("testcase"):
+        kinds = {child.tag for child in case}
+        outcome = ("failed" if "failure" in kinds else "error" if "error" in kinds
+                   else "skipped" if "skipped" in kinds else "passed")
+        outcomes[f"{case.get('classname')}::{case.get('name')}"] = outcome
+    return outcomes
+
+
+# -- the bundled suites against a target ------------------------------------- #
+
+def test_correct_target_passes(project):
+    result = project.runpytest(*PLUGIN, "--ntoracle-target", "is_prime=good_prime:is_prime",
+                               "--ntoracle-seed", "5")
+    outcomes = result.parseoutcomes()
+    assert outcomes.get("failed", 0) == 0 and outcomes.get("errors", 0) == 0
+    assert outcomes["passed"] >= 10
+    result.stdout.fnmatch_lines(["ntoracle: seed 5 (--ntoracle-seed), profile quick",
+                                 "*caution: *probable prime is not a proven prime*"])
+
+
+def test_defective_target_fails_with_input_got_expected_provenance_and_seed(project):
+    result = project.runpytest(*PLUGIN, "--ntoracle-target", "is_prime=fermat_prime:is_prime",
+                               "--ntoracle-seed", "5", "-k", "carmichael")
+    result.assert_outcomes(failed=1, deselected=result.parseoutcomes()["deselected"])
+    result.stdout.fnmatch_lines([
+        "*ntoracle: fermat_prime:is_prime as is_prime failed * checks in case 'carmichael' "
+        "(profile quick, seed 5)",
+        "is_prime(46657): wrong (exact)",           # 13 * 37 * 97, OEIS A002997
+        "    input:      46657",
+        "    got:        true",
+        "    expected:   false",
+        "    provenance: *",
+        "smallest failing input: [[]46657[]]*",
+        "reproduce: pytest --ntoracle-seed 5 --ntoracle-profile quick -k 'carmichael[*",
+    ])
+
+
+def test_ids_select_with_k_and_rerun_with_lf_with_two_targets_of_one_role(project):
+    arguments = [*PLUGIN, "--ntoracle-target", "is_prime=fermat_prime:is_prime",
+                 "--ntoracle-target", "is_prime=good_prime:is_prime", "--ntoracle-seed", "5"]
+    first = project.runpytest(*arguments, "-k", "carmichael or landmarks", "-v")
+    first.stdout.fnmatch_lines(["ntoracle::is_prime@fermat_prime_is_prime::carmichael[[]*] FAILED*",
+                                "ntoracle::is_prime@good_prime_is_prime::carmichael[[]*] PASSED*"],
+                               consecutive=False)
+    failed = first.parseoutcomes()["failed"]
+    rerun = project.runpytest(*arguments, "--lf", "-q")
+    rerun.assert_outcomes(failed=failed, deselected=rerun.parseoutcomes().get("deselected", 0))
+    rerun.stdout.fnmatch_lines(["FAILED ntoracle::is_prime@fermat_prime_is_prime::carmichael*"])
+    assert "good_prime" not in "".join(line for line in rerun.outlines if line.startswith("FAILED"))
+
+
+def test_no_target_adds_no_items_and_imports_nothing_heavy(pytester):
+    pytester.makepyfile(test_light='''
+        import sys
+
+        def test_nothing_heavy_was_imported():
+            heavy = [name for name in ("numpy", "gmpy2", "primesieve", "yaml", "oracle.engine",
+                                       "oracle.sampling", "oracle.pytest_support._nodes")
+                     if name in sys.modules]
+            assert heavy == []
+    ''')
+    result = pytester.runpytest_subprocess(*PLUGIN, "-p", "no:cacheprovider")
+    result.assert_outcomes(passed=1)
+    result.stdout.fnmatch_lines(["collected 1 item"])
+    assert not [line for line in result.outlines           # no header line, no summary section
+                if line.startswith("ntoracle") or " ntoracle " in line]
+
+
+def test_xdist_two_workers_give_the_serial_outcomes(project):
+    arguments = [*PLUGIN, "--ntoracle-target", "is_prime=fermat_prime:is_prime",
+                 "--ntoracle-seed", "11", "-p", "no:randomly"]
+    project.runpytest_subprocess(*arguments, "--junitxml", "serial.xml")
+    project.runpytest_subprocess(*arguments, "-n", "2", "--junitxml", "parallel.xml",
+                                 "--ntoracle-report", "report")
+    serial = _outcomes_by_id(project.path / "serial.xml")
+    parallel = _outcomes_by_id(project.path / "parallel.xml")
+    assert "failed" in serial.values() and "passed" in serial.values()
+    assert parallel == serial
+    # the controller's report names the same outcomes, and every item left its records
+    summary = json.loads((project.path / "report" / "summary.json").read_text())
+    assert summary["seed"] == 11
+    assert {node.rsplit("::", 1)[1]: outcome for node, outcome in summary["items"].items()} == {
+        name.rsplit("::", 1)[1]: outcome for name, outcome in serial.items()}
+    assert len(list((project.path / "report" / "records").glob("*.jsonl"))) == len(serial)
+
+
+EXEC_IS_PRIME = """
+import sys
+import flint
+
+for line in sys.stdin:
+    n = int(line)
+    print(1 if n >= 2 and flint.fmpz(n).is_prime() else 0, flush=True)
+"""
+
+
+def test_executable_target_speaks_the_line_protocol(project):
+    project.makepyfile(line_prime=EXEC_IS_PRIME)
+    result = project.runpytest(*PLUGIN, "--ntoracle-exec", f"is_prime={sys.executable} line_prime.py",
+                               "--ntoracle-seed", "2", "-k", "carmichael or pseudoprimes or exhaustive")
+    outcomes = result.parseoutcomes()
+    assert outcomes["passed"] >= 3 and outcomes.get("failed", 0) == 0
+
+
+def test_ini_and_command_line_forms_agree(project):
+    command_line = project.runpytest(*PLUGIN, "--collect-only", "-q",
+                                     "--ntoracle-target", "is_prime=good_prime:is_prime",
+                                     "--ntoracle-profile", "ci", "--ntoracle-seed", "3")
+    project.makeini("[pytest]\npythonpath = .\nntoracle_targets =\n    is_prime = good_prime:is_prime\n"
+                    "ntoracle_profile = ci\nntoracle_seed = 3\n")
+    from_ini = project.runpytest(*PLUGIN, "--collect-only", "-q")
+    ids = [line for line in command_line.outlines if line.startswith("ntoracle::")]
+    assert len(ids) > 10
+    assert [line for line in from_ini.outlines if line.startswith("ntoracle::")] == ids
+    # the command line beats the ini file
+    overridden = project.runpytest(*PLUGIN, "--ntoracle-profile", "quick", "--ntoracle-seed", "4",
+                                   "--collect-only", "-q")
+    header = project.runpytest(*PLUGIN, "--ntoracle-seed", "4", "--co", "-k", "nothing")
+    overridden.stdout.fnmatch_lines(["ntoracle::is_prime::exhaustive[[]0..300[]]"])
+    assert any(line.startswith("ntoracle::is_prime::exhaustive[0..999]") for line in ids)
+    assert "seed 4 (--ntoracle-seed), profile ci" in header.stdout.str()
+
+
+@pytest.mark.parametrize("arguments, problem", [
+    (["--ntoracle-seed", "abc"], "*ntoracle: --ntoracle-seed='abc': *cannot read 'abc'*"),
+    (["--ntoracle-profile", "fast"], "*ntoracle: --ntoracle-profile='fast': expected one of quick*"),
+    (["--ntoracle-target", "prime_py=good_prime:is_prime"], "*unknown role 'prime_py'*"),
+    (["--ntoracle-target", "is_prime=no_such_module:is_prime"], "*cannot import 'no_such_module'*"),
+    (["--ntoracle-exec", "is_prime=/no/such/command --flag"], "*--ntoracle-exec=is_prime=/no/such/command --flag: no such command"),
+])
+def test_bad_settings_are_usage_errors_naming_their_source(project, arguments, problem):
+    result = project.runpytest(*PLUGIN, *arguments)
+    assert result.ret == pytest.ExitCode.USAGE_ERROR
+    result.stderr.fnmatch_lines([problem])
+
+
+# -- user suite files ---------------------------------------------------------- #
+
+def test_user_suite_runs_its_own_target_and_a_malformed_one_is_one_clear_error(project):
+    project.makefile(".ntoracle.yaml", checks='''
+        role: is_prime
+        target: fermat_prime:is_prime
+        cases:
+          - name: korselt
+            values: [29341, 29339]
+          - name: draws
+            random: {count: 5, low: 2, high: 10**6}
+    ''')
+    project.makefile(".ntoracle.yaml", broken='''
+        role: is_prime
+        cases:
+          - name: small
+            range: {start: 0, stop: ten}
+    ''')
+    project.makepyfile(test_other="def test_still_runs():\n    assert True\n")
+    result = project.runpytest(*PLUGIN, "-v")
+    result.assert_outcomes(passed=3, failed=1, errors=1)
+    result.stdout.fnmatch_lines([
+        "broken.ntoracle.yaml::suite-error ERROR*",
+        "checks.ntoracle.yaml::is_prime::korselt[[]29341[]] FAILED*",
+        "checks.ntoracle.yaml::is_prime::korselt[[]29339[]] PASSED*",
+        "test_other.py::test_still_runs PASSED*",
+        "malformed ntoracle suite: *broken.ntoracle.yaml:4: case 'small': stop: 'ten': cannot read*",
+    ])
+
+
+def test_points_above_the_declared_domain_are_skipped_never_passed(project):
+    project.makefile(".ntoracle.yaml", bounded='''
+        role: is_prime
+        target: good_prime:is_prime
+        max: 1000
+        cases:
+          - name: edge
+            range: {start: 995, stop: 1005}
+          - name: beyond
+            values: [10**6]
+    ''')
+    result = project.runpytest(*PLUGIN, "-rs")
+    result.assert_outcomes(passed=1, skipped=1, warnings=1)
+    result.stdout.fnmatch_lines([
+        "*bounded.ntoracle.yaml::is_prime::edge[[]995..1005[]]: not run, so not passed: "
+        "5 point(s): above the declared domain*",
+        "SKIPPED*no point checked (1 point(s): above the declared domain*); skipped, not passed",
+    ])
+
+
+def test_inputs_outside_the_domain_under_the_raise_convention(project):
+    project.makefile(".ntoracle.yaml", strict='''
+        role: is_prime
+        target: good_prime:is_prime
+        conventions: {invalid_input: raise}
+        cases:
+          - name: outside
+            invalid: [-1, -7]
+    ''')
+    result = project.runpytest(*PLUGIN)
+    result.assert_outcomes(failed=1)
+    result.stdout.fnmatch_lines(["*failed 2 of 2 checks in case 'outside'*",
+                                 "is_prime(-7): wrong (invalid-input)",
+                                 "*answered an input outside the domain instead of raising*"])
+
+
+def test_fixtures_in_hand_written_tests(project):
+    project.makepyfile(test_hand='''
+        import pytest
+        from fermat_prime import is_prime as fermat
+
+        def test_facade_and_bounds(ntoracle, ntoracle_bounds):
+            assert ntoracle.pi(10**6) == 78498          # OEIS A006880
+            assert ntoracle_bounds is not None
+
+        def test_points_follow_the_seed(ntoracle_points, ntoracle_seed):
+            assert ntoracle_seed == 9
+            points = ntoracle_points("is_prime", family="carmichael")
+            assert (561,) in points                    # OEIS A002997
+
+        def test_check_passes(ntoracle_check):
+            ntoracle_check("is_prime", fermat, [2, 3, 97, 561])
+
+        def test_check_fails(ntoracle_check):
+            ntoracle_check("is_prime", fermat, [29341])
+
+        def test_answer_fails(ntoracle_check):
+            ntoracle_check.answer("prime_pi", 10**6, 78499)
+    ''')
+    result = project.runpytest(*PLUGIN, "--ntoracle-seed", "9")
+    result.assert_outcomes(passed=3, failed=2)
+    result.stdout.fnmatch_lines([
+        "*failed 1 of 1 checks in case 'check' (profile quick, seed 9)",
+        "is_prime(29341): wrong (exact)",
+        "*failed 1 of 1 checks in case 'answer'*",
+        "    expected:   78498",
+    ])
+
+
+def test_hypothesis_profile_loaded_only_when_asked(pytester):
+    check = "from hypothesis import settings\n\ndef test_profile():\n    assert settings.get_current_profile_name() == {!r}\n"
+    pytester.makepyfile(test_settings=check.format("ntoracle-ci"))
+    pytester.runpytest_subprocess(*PLUGIN, "--ntoracle-hypothesis-profile", "ntoracle-ci").assert_outcomes(passed=1)
+    pytester.runpytest_subprocess(*PLUGIN, "--hypothesis-profile", "ntoracle-ci").assert_outcomes(passed=1)
+    pytester.makepyfile(test_settings=check.format("default"))
+    pytester.runpytest_subprocess(*PLUGIN).assert_outcomes(passed=1)
+
+
+def test_plugin_loads_through_the_entry_point(pytester):
+    declared = tomllib.loads((REPOSITORY / "pyproject.toml").read_text())
+    entry_points = declared["project"].get("entry-points", {}).get("pytest11", {})
+    if entry_points.get("ntoracle") != "oracle.plugin":
+        pytest.skip("pyproject.toml does not declare the pytest11 entry point yet")
+    assert _entry_point_installed(), "declared but not installed: run pip install -e ."
+    result = pytester.runpytest_subprocess("--help")
+    result.stdout.fnmatch_lines(["*--ntoracle-target=ROLE=MODULE:FUNCTION*"])
+
+
+# -- the suite format ------------------------------------------------------------ #
+
+@pytest.mark.parametrize("text, line, problem", [
+    ("role: is_prime\ncases: [\n", 3, "not valid YAML"),
+    ("role: is_prim\ncases: []\n", 1, "role='is_prim'"),
+    ("role: is_prime\ncolour: red\ncases: []\n", 2, "unknown key 'colour'"),
+    ("role: is_prime\ncases: []\n", 2, "'cases' must be a non-empty list"),
+    ("role: is_prime\ncases:\n  - name: a\n    values: [1.5]\n", 4, "floats are refused"),
+    ("role: is_prime\ncases:\n  - name: a\n    family: twins\n", 4, "the is_prime families are"),
+    ("role: is_prime\ncases:\n  - name: a\n    values: [1]\n  - name: a\n    values: [2]\n", 5,
+     "case name 'a' is used twice"),
+    ("role: primes_in\ncases:\n  - name: a\n    values: [3]\n", 4, "expected a pair [a, b]"),
+    ("role: is_prime\ncases:\n  - name: a\n    random: {count: 3, low: 9, high: 2}\n", 4,
+     "high=2 is below low=9"),
+    ("role: is_prime\ntarget: mylib.is_prime\ncases: []\n", 2, "expected package.module:function"),
+    ("role: is_prime\nconventions: {colour: red}\ncases:\n  - name: a\n    values: [1]\n", 2,
+     "conventions: expected keys among"),
+])
+def test_malformed_suites_name_the_line_and_the_problem(text, line, problem):
+    with pytest.raises(SuiteError) as raised:
+        parse_suite(text, "s.ntoracle.yaml")
+    assert raised.value.line == line
+    assert problem in raised.value.problem
+    assert str(raised.value).startswith(f"s.ntoracle.yaml:{line}: ")
+
+
+def test_exhaustive_profile_splits_long_ranges_into_segments_that_tile_the_range():
+    suite = parse_suite("role: prime_pi\ncases:\n  - name: all\n    range: {start: 0, stop: profile}\n",
+                        "s.yaml")
+    profile = sampling.profile("exhaustive")
+    groups = groups_of(suite, suite.cases[0], profile=profile, seed=1, sampled=None)
+    assert len(groups) == -(-(profile.exhaustive + 1) // 1000)
+    covered = [x for group in groups[:3] for (x,) in group.arguments(1)]
+    assert covered == list(range(3000))
+    assert all(a.segment[1] + 1 == b.segment[0] for a, b in zip(groups, groups[1:]))
+    assert groups[-1].segment[1] == profile.exhaustive
+
+
+def test_bundled_suites_cover_every_family_of_every_role():
+    suites = {load_suite(entry).role: load_suite(entry) for entry in bundled_suite_paths()}
+    assert set(suites) == set(roles.ROLES)
+    for name, suite in suites.items():
+        families = {case.spec for case in suite.cases if case.kind == "family"}
+        has_range = any(case.kind == "range" for case in suite.cases)
+        assert families | ({"exhaustive"} if has_range else set()) == set(roles.get(name).families), name
+
+
+def test_settings_names_agree_with_the_library():
+    assert _settings.PROFILE_NAMES == tuple(sampling.PROFILES)
+    assert set(_settings.ROLE_NAMES) == set(roles.ROLES)
