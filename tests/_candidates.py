@@ -121,3 +121,9 @@ def twin_pi(x):
 
 def twin_pi_lower_member(x):          # counts pairs with p <= x instead of p + 2 <= x
     return primesieve.count_twins(0, x + 2) if x >= 3 else 0
+
+
+def nth_prime_hangs_at_zero(n):       # no guard for n < 1: the search never ends
+    while n < 1:
+        time.sleep(0.01)
+    return primesieve.nth_prime(n)

@@ -4,8 +4,9 @@ import json
 
 import pytest
 
-from oracle import engine, targets
+from oracle import engine, sampling, targets
 from oracle.engine import AuditOptions
+from oracle.engine._audit import BATCH
 
 SMALL = 20_000      # declared domain keeping these runs fast; the points above are skipped
 
@@ -97,14 +98,47 @@ def test_failures_recorded_and_replayed_first(tmp_path):
 
 
 def test_interrupted_stream_rebuilds_the_summary(tmp_path):
-    summary = audit("_candidates:prime_pi_exclusive", "prime_pi", tmp_path, maximum=3000)
+    summary = audit("_candidates:prime_pi_from_1000", "prime_pi", tmp_path, maximum=3000)
     path = tmp_path / "r.jsonl"
     assert engine.rebuild_summary(path)["failures"] == summary["failures"]
     lines = path.read_text().splitlines()
+    records = [json.loads(line) for line in lines]
+    first_failure = next(i for i, r in enumerate(records) if r.get("status") in engine.FAILURE_STATUSES)
+    cut_at = first_failure + 1
     cut = tmp_path / "cut.jsonl"
-    cut.write_text("\n".join(lines[:200]) + "\n" + lines[200][:17])   # killed mid-write
+    cut.write_text("\n".join(lines[:cut_at]) + "\n" + lines[cut_at][:17])   # killed mid-write
     partial = engine.rebuild_summary(cut)
-    # line 0 is the start record, lines 1..199 are checks, line 200 is torn and dropped
-    assert not partial["complete"] and partial["checks"] == 199
+    # line 0 is the start record, then checks up to the first failure; the next line is torn
+    assert cut_at > 100 and all(r["type"] == "check" for r in records[1:cut_at])
+    assert not partial["complete"] and partial["checks"] == cut_at - 1
     assert partial["seed"] == 3 and not partial["passed"]
+    assert partial["failures"] == summary["failures"][:1]
     json.dumps(partial)
+
+
+def test_a_candidate_wrong_everywhere_stops_after_enough_findings(tmp_path):
+    summary = audit("_candidates:prime_pi_float", "prime_pi", tmp_path, profile="ci", maximum=10**6)
+    enough = sampling.profile("ci").enough_findings
+    # the batch in which the enough-th finding arrives is judged to its end
+    assert enough <= len(summary["failures"]) < enough + BATCH
+    assert summary["skipped"][f"the candidate had already failed {enough} checks"] > 1000
+
+
+def test_a_hang_outside_the_domain_is_a_finding_but_skips_nothing_inside(tmp_path):
+    summary = audit("_candidates:nth_prime_hangs_at_zero", "nth_prime", tmp_path, timeout=0.3,
+                    maximum=3000)
+    assert [f["arguments"] for f in summary["failures"]] == [[0]]
+    assert summary["failures"][0]["status"] == "too-slow"
+    assert summary["skipped"].get("outside the domain, after a hang there") == 1      # nth_prime(-1)
+    assert "at least as large as inputs that timed out" not in summary["skipped"]
+    assert summary["passed_checks"] > 300          # the quick profile checks 1 ... 300 and more
+
+
+def test_replay_asks_every_point_even_after_many_findings(tmp_path):
+    target = targets.python_target("_candidates:prime_pi_float", role_name="prime_pi", timeout=2.0)
+    try:
+        summary = engine.run_audit(target, AuditOptions(role="prime_pi", profile="quick", seed=1),
+                                   only=[(x,) for x in range(100)])
+    finally:
+        target.close()
+    assert len(summary["failures"]) == 100

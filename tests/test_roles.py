@@ -121,3 +121,52 @@ def test_factor_rejects_wrong_product_composite_factor_and_declared_shape():
 def test_bad_conventions_are_refused():
     with pytest.raises(InvalidInputError, match="primes_range"):
         Conventions(primes_range="open")
+
+
+def test_counts_from_the_nearest_known_count_agree_with_primecount_and_primesieve():
+    # primecountpy and primesieve are test-only references; the points walk up and down
+    # so that each count is derived from a neighbour (both directions of the identity)
+    import primesieve
+    from primecountpy import primecount
+    from oracle.roles._known_counts import KnownCounts
+
+    points = [2**20 + 7, 2**20 - 5, 2**20 + 1, 3 * 2**20, 3 * 2**20 - 1, 5, 2, 3, 10**6 + 3]
+    primes_memory, twins_memory = KnownCounts("pi"), KnownCounts("twin_pi")
+    for x in points:
+        assert primes_memory.exact(x, 5.0)[0] == primecount.prime_pi(x)
+        assert twins_memory.exact(x, 5.0)[0] == (primesieve.count_twins(x) if x >= 5 else 0)
+    value, provenance = twins_memory.exact(2**20 + 3, 5.0)
+    assert "sieve" in provenance
+
+
+def test_counting_judge_with_a_run_memory_reports_the_exact_value():
+    from oracle.roles._known_counts import KnownCounts
+
+    role, memory = roles.get("prime_pi"), KnownCounts("pi")
+    assert role.judge((10**9,), 50847534, CONVENTIONS, 5.0, memory=memory).passed   # OEIS A006880
+    wrong = role.judge((10**9 + 7,), 50847534, CONVENTIONS, 5.0, memory=memory)
+    # 10**9 + 7 is prime (sympy.isprime), and the only prime in (10**9, 10**9 + 7]
+    assert sympy.isprime(10**9 + 7) and list(sympy.primerange(10**9 + 1, 10**9 + 8)) == [10**9 + 7]
+    assert not wrong.passed and wrong.expected == 50847535
+
+
+@pytest.mark.parametrize("n", [664580, 10**6 + 1, 3 * 10**6])
+def test_nth_prime_beyond_the_kept_sieve_against_sympy(n):
+    # pi(10**7) = 664579 (OEIS A006880): these n are judged by counting, not by the kept sieve
+    right = sympy.prime(n)
+    assert judge("nth_prime", (n,), right).passed
+    next_one = sympy.nextprime(right)
+    wrong = judge("nth_prime", (n,), next_one)
+    assert not wrong.passed and wrong.expected == right and f"p_{n + 1}" in wrong.detail
+    far = judge("nth_prime", (n,), 15)                    # a 32-bit wrap gives tiny primes
+    assert not far.passed and far.expected == right
+
+
+def test_primes_in_far_up_is_listed_by_testing_each_number():
+    a, b = 2**64 - 3000, 2**64 - 1
+    listing = judge("primes_in", (a, b), list(sympy.primerange(a, b + 1)))
+    assert listing.passed and listing.provenance == "deterministic"
+    # 2**64 - 59 is the largest prime below 2**64 (sympy.prevprime)
+    assert sympy.prevprime(2**64) == 2**64 - 59
+    short = judge("primes_in", (a, b), list(sympy.primerange(a, b + 1))[:-1])
+    assert not short.passed and "first missing prime: 18446744073709551557" in short.detail

@@ -62,10 +62,24 @@ def test_primes_in_samples_intervals_and_segment_prefixes():
     assert (0, 2**16) in found and (0, 2**15 - 1) in found
 
 
-def test_heavy_counting_points_are_capped():
-    for name in ("prime_pi", "twin_pi", "nth_prime"):
-        heavy = [s for s in points(name) if s.arguments[0] > sampling.HEAVY[name]]
-        assert len(heavy) <= sampling.profile("ci").heavy_points
+def test_heavy_points_are_capped_in_number_and_in_cost():
+    ci = sampling.profile("ci")
+    for name in ("prime_pi", "twin_pi", "nth_prime", "primes_in"):
+        heavy = [s for s in points(name) if max(s.arguments) > sampling.HEAVY[name]]
+        assert 0 < len(heavy) <= ci.heavy_points
+        assert sum(sampling.heavy_cost(name, max(s.arguments)) for s in heavy) <= ci.heavy_budget[name]
+
+
+def test_heavy_cost_is_the_argument_or_its_square_root():
+    assert sampling.heavy_cost("twin_pi", 2**32) == 2**32            # a sieve up to x
+    assert sampling.heavy_cost("primes_in", 2**64 - 1) == 2**32 - 1  # sieving primes up to sqrt(b)
+
+
+def test_primes_in_samples_long_listings_across_segment_seams():
+    found = arguments("primes_in")
+    # segments laid from a = 1 put a seam on 1 + 2**16 = 65537, a Fermat prime (OEIS A019434)
+    assert any(a == 1 and b > 65537 for a, b in found)
+    assert any(b - a > 2**17 for a, b in found if b < 2**32)
 
 
 def test_unknown_profile_refused():

@@ -2,9 +2,10 @@
 
 The order of work:
 
-1. the regression corpus of this role, then the invalid inputs, then the
-   sampled points (:func:`oracle.sampling.sample`) from the smallest up -- small
-   inputs are cheap, so most defects show within the first second -- in batches;
+1. the regression corpus of this role, then the sampled points
+   (:func:`oracle.sampling.sample`) from the smallest up -- small inputs are
+   cheap, so most defects show within the first second -- in batches, then the
+   inputs outside the domain (where a hang costs a whole timeout);
 2. each answer is normalised and judged by the role (:mod:`oracle.roles`);
    faults -- an exception, a wrong type, a timeout ("too slow"), a dead
    process -- are findings, never errors of the harness;
@@ -20,8 +21,11 @@ The order of work:
 6. failures go to the regression corpus.
 
 Points above the declared domain (``maximum``), points left when the time
-budget is spent, and points at least as large as two that timed out are
-skipped and counted as skipped -- never as passed.
+budget is spent, points at least as large as two that timed out, and -- once
+the candidate has clearly failed (the profile's ``enough_findings``) -- the
+points not yet asked are skipped and counted as skipped, never as passed.
+After enough findings only the localisation (step 5) is still done; the time
+budget covers every phase, the localisation included.
 """
 
 from __future__ import annotations
@@ -41,7 +45,7 @@ from ._records import FAILURE_STATUSES, RecordStream, jsonable, summarise
 __all__ = ["AuditOptions", "run_audit"]
 
 BATCH = 64
-#: Seconds per call above which points are asked one at a time.
+#: Seconds per point (call and verdict) above which points are asked one at a time.
 SLOW_CALL = 0.05
 #: Timeouts after which larger points are skipped.
 TIMEOUTS_BEFORE_SKIPPING = 2
@@ -49,6 +53,36 @@ TIMEOUTS_BEFORE_SKIPPING = 2
 CRASHES_BEFORE_STOPPING = 5
 #: Steps of bisection at most (2**64 needs 64).
 BISECTION_STEPS = 80
+#: Families re-asked first: strong pseudoprimes and Carmichael numbers have many liars.
+FRAGILE_FAMILIES = ("pseudoprimes", "carmichael", "semiprimes", "squares")
+#: A passing listing longer than this is recorded abridged (a failing one is kept whole).
+LONGEST_RECORDED_LISTING = 16
+
+
+def _abridged(listing: list) -> str:
+    return f"{len(listing)} items: {listing[0]}, {listing[1]}, ..., {listing[-1]}"
+
+
+def _next_probe(low: int, high: int) -> int:
+    """The next point to ask between the agreeing ``low`` and the disagreeing ``high``.
+
+    Divergences start at word and table boundaries far more often than anywhere
+    else (common practice), so B − 1 and B for the largest power of two or of ten
+    B inside (low + 1, high] are tried before halving: a candidate that goes wrong
+    at 2³² is then localised in two calls instead of thirty.
+    """
+    for boundary in sorted(_boundaries_below(high), reverse=True):
+        if low < boundary - 1 < high:
+            return boundary - 1
+        if low < boundary < high:
+            return boundary
+    return (low + high) // 2
+
+
+def _boundaries_below(high: int) -> tuple[int, int]:
+    power_of_two = 1 << (high.bit_length() - 1) if high > 0 else 0
+    power_of_ten = 10 ** (len(str(high)) - 1) if high > 0 else 0
+    return power_of_two, power_of_ten
 
 
 @dataclass
@@ -76,11 +110,18 @@ class _Run:
         self.stream = stream
         self.started = time.perf_counter()
         self.answers: dict[tuple, object] = {}
+        self.families: dict[tuple, str] = {}
         self.verdicts: dict[tuple, object] = {}
         self.failures: list[dict] = []
         self.timed_out_sizes: list[int] = []
         self.crashes = 0
+        self.faults = 0             # timeouts and crashes
         self.skipped: dict[str, list[int]] = {}
+        self.time_budget = (options.time_budget if options.time_budget is not None
+                            else self.profile.time_budget)
+        self.enough_findings = self.profile.enough_findings
+        #: What the role remembers during this run (exact values found so far), or None.
+        self.memory = self.role.memory() if self.role.memory is not None else None
 
     def elapsed(self) -> float:
         return round(time.perf_counter() - self.started, 6)
@@ -89,6 +130,8 @@ class _Run:
 
     def record(self, status, check, family, arguments, got=None, expected=None, provenance="",
                detail="", seconds=0.0) -> dict:
+        if status == "pass" and type(got) is list and len(got) > LONGEST_RECORDED_LISTING:
+            got = expected = _abridged(got)
         record = {"type": "check", "status": status, "check": check, "family": family,
                   "arguments": list(arguments), "got": jsonable(got), "expected": jsonable(expected),
                   "provenance": provenance, "detail": detail, "seconds": seconds,
@@ -101,10 +144,13 @@ class _Run:
     def judge(self, family: str, arguments: tuple, result, *, invalid: bool = False) -> dict:
         role, conventions = self.role, self.options.conventions
         if result.status == TIMEOUT:
-            self.timed_out_sizes.append(role.magnitude(arguments))
+            self.faults += 1
+            if not invalid:         # a hang outside the domain says nothing about larger inputs
+                self.timed_out_sizes.append(role.magnitude(arguments))
             return self.record("too-slow", "timeout", family, arguments, detail=result.error,
                                seconds=result.seconds)
         if result.status == CRASHED:
+            self.faults += 1
             self.crashes += 1
             return self.record("crashed", "process", family, arguments, detail=result.error,
                                seconds=result.seconds)
@@ -126,12 +172,17 @@ class _Run:
             return self.record("wrong-type", "type", family, arguments, got=repr(result.value)[:200],
                                detail=str(error), seconds=result.seconds)
         try:
-            verdict = role.judge(arguments, value, conventions, self.options.oracle_budget)
+            if self.memory is None:
+                verdict = role.judge(arguments, value, conventions, self.options.oracle_budget)
+            else:
+                verdict = role.judge(arguments, value, conventions, self.options.oracle_budget,
+                                     memory=self.memory)
         except OutOfReachError as error:
             self.skipped.setdefault("out of the oracle's reach", []).append(role.magnitude(arguments))
             return {"status": "skipped", "detail": str(error)}
         self.answers[arguments] = value
         self.verdicts[arguments] = verdict
+        self.families[arguments] = family
         if not verdict.reach:
             self.skipped.setdefault("out of the oracle's reach", []).append(role.magnitude(arguments))
             return {"status": "skipped"}
@@ -140,6 +191,12 @@ class _Run:
                            detail=verdict.detail, seconds=result.seconds)
 
     # -- the phases -------------------------------------------------------- #
+
+    def over_budget(self) -> bool:
+        return self.elapsed() > self.time_budget
+
+    def failed_enough(self) -> bool:
+        return self.enough_findings is not None and len(self.failures) >= self.enough_findings
 
     def runnable(self, arguments: tuple, over_budget: bool = False) -> str | None:
         """Why a point is not to be asked, or None."""
@@ -152,15 +209,18 @@ class _Run:
             return "at least as large as inputs that timed out"
         if self.crashes >= CRASHES_BEFORE_STOPPING:
             return "the candidate crashed too often"
+        if self.failed_enough():
+            return f"the candidate had already failed {self.enough_findings} checks"
         return None
 
     def ask(self, points: list[tuple[str, tuple]], *, invalid: bool = False) -> None:
-        """Ask the points in batches; batches shrink to one call when calls become slow, so that
-        the time budget is kept to within about one call."""
-        start, size = 0, BATCH
+        """Ask the points in batches; batches start at one call and double up to :data:`BATCH`
+        while calls are fast, and fall back to one call when calls become slow, time out or
+        crash, so that the time budget and the skipping rules act within about one call."""
+        start, size = 0, 1
         while start < len(points):
             batch = []
-            over_budget = self.elapsed() > self.time_budget
+            over_budget = self.over_budget()
             for family, arguments in points[start:start + size]:
                 reason = self.runnable(arguments, over_budget)
                 if reason is None:
@@ -169,16 +229,38 @@ class _Run:
                     self.skipped.setdefault(reason, []).append(self.role.magnitude(arguments))
             start += size
             began = time.perf_counter()
-            for (family, arguments), result in zip(batch, self.target.call_many([a for _, a in batch])):
+            results = self.target.call_many([a for _, a in batch]) if batch else []
+            faults_before = self.faults
+            for (family, arguments), result in zip(batch, results):
                 self.judge(family, arguments, result, invalid=invalid)
             slow = batch and (time.perf_counter() - began) / len(batch) > SLOW_CALL
-            size = 1 if slow else BATCH
+            faulty = self.faults != faults_before
+            size = 1 if slow or faulty else min(2 * size, BATCH)
+            if self.failed_enough():
+                size = len(points)      # the rest is only counted as skipped
+
+    def ask_invalid(self, points: list[tuple[str, tuple]]) -> None:
+        """Ask the inputs outside the domain one by one; after one hang the rest are skipped
+        (one hang there is finding enough, and each costs a whole timeout)."""
+        for index, point in enumerate(points):
+            self.ask([point], invalid=True)
+            if self.failures and self.failures[-1]["status"] == "too-slow" \
+                    and self.failures[-1]["family"] == "invalid-input":
+                for _, arguments in points[index + 1:]:
+                    self.skipped.setdefault("outside the domain, after a hang there",
+                                            []).append(self.role.magnitude(arguments))
+                return
 
     def reask(self, seed: int) -> None:
+        """Ask a sample of points again: half of it, where there are enough, from the families
+        on which a randomised test errs most often (its liars are many there)."""
         rng = random.Random(f"{seed}:reask")
         asked = sorted(self.answers)
-        chosen = rng.sample(asked, min(self.profile.reask, len(asked)))
-        over_budget = self.elapsed() > self.time_budget
+        fragile = [arguments for arguments in asked if self.families.get(arguments) in FRAGILE_FAMILIES]
+        chosen = rng.sample(fragile, min(self.profile.reask // 2, len(fragile)))
+        others = sorted(set(asked) - set(chosen))
+        chosen += rng.sample(others, min(self.profile.reask - len(chosen), len(others)))
+        over_budget = self.over_budget()
         chosen = [arguments for arguments in chosen if self.runnable(arguments, over_budget) is None]
         for arguments, result in zip(chosen, self.target.call_many(chosen)):
             if result.status != OK:
@@ -195,7 +277,7 @@ class _Run:
                             seconds=result.seconds)
 
     def relations(self) -> None:
-        if self.role.relations is None or not self.answers:
+        if self.role.relations is None or not self.answers or self.failed_enough():
             return
         for arguments, got, verdict in self.role.relations(self.answers, self.verdicts,
                                                            self.options.oracle_budget):
@@ -231,8 +313,12 @@ class _Run:
         worst = first
         steps = 0
         while high - low > 1 and steps < BISECTION_STEPS and self.crashes < CRASHES_BEFORE_STOPPING:
+            if self.over_budget():
+                self.skipped.setdefault("time budget spent (bisection left unfinished)",
+                                        []).append((low + high) // 2)
+                break
             steps += 1
-            middle = (low + high) // 2
+            middle = _next_probe(low, high)
             (result,) = self.target.call_many([(middle,)])
             record = self.judge("bisection", (middle,), result)
             if record["status"] == "pass":
@@ -242,8 +328,9 @@ class _Run:
             else:
                 break
         return {"kind": "first divergence", "input": [high], "last_agreeing": low,
-                "bisection_steps": steps, "got": worst["got"], "expected": worst["expected"],
-                "provenance": worst["provenance"], "detail": worst["detail"]}
+                "bisection_steps": steps, "adjacent": high - low == 1, "got": worst["got"],
+                "expected": worst["expected"], "provenance": worst["provenance"],
+                "detail": worst["detail"]}
 
     def first_wrong_prime(self, wrong: list[dict]) -> dict:
         from ..roles.primes_in import first_wrong_prime
@@ -286,7 +373,6 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
         options.timeout = chosen.timeout
     stream = RecordStream(options.stream)
     run = _Run(target, options, stream)
-    run.time_budget = options.time_budget if options.time_budget is not None else chosen.time_budget
     try:
         stream.write({"type": "start", "target": target.description, "role": role.name,
                       "profile": chosen.name, "seed": seed, "timeout": options.timeout,
@@ -298,14 +384,15 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
                              for entry in load_corpus(options.corpus)
                              if entry["role"] == role.name and len(entry["arguments"]) == role.arity]
         if only is not None:
+            run.enough_findings = None          # a replay asks every point it was given
             run.ask([("regression", tuple(arguments)) for arguments in only])
         else:
             run.ask(corpus_points)
-            run.ask([("invalid-input", arguments) for arguments in role.invalid_inputs], invalid=True)
             samples = sorted(sampling.sample(role, chosen, seed),
                              key=lambda s: role.magnitude(s.arguments))
             replayed = {arguments for _, arguments in corpus_points}
             run.ask([(s.family, s.arguments) for s in samples if s.arguments not in replayed])
+            run.ask_invalid([("invalid-input", arguments) for arguments in role.invalid_inputs])
             run.reask(seed)
             run.relations()
         found = run.divergence()

@@ -12,9 +12,10 @@ from __future__ import annotations
 
 from .. import claims
 from .._errors import OutOfReachError
+from ._known_counts import KnownCounts
 from ._role import Conventions, Verdict, as_integer
 
-__all__ = ["normalise_count", "judge_count", "count_relations"]
+__all__ = ["normalise_count", "judge_count", "count_relations", "count_memory"]
 
 #: Longest gap h between two sampled points for which the short-interval check is made.
 SHORT_INTERVAL_LIMIT = 10**7
@@ -34,19 +35,37 @@ def _verdict(result: claims.ClaimCheck) -> Verdict:
 
 
 def judge_count(function: str):
-    """The judge of one counting answer: exact value, else the proven interval."""
+    """The judge of one counting answer: exact value, else the proven interval.
 
-    def judge(arguments: tuple, got: int, conventions: Conventions, budget: float | None) -> Verdict:
+    With ``memory`` (a :class:`KnownCounts` of the run) the exact value comes from
+    the nearest count already known in this run when that is cheaper.
+    """
+
+    def judge(arguments: tuple, got: int, conventions: Conventions, budget: float | None,
+              *, memory: KnownCounts | None = None) -> Verdict:
         (x,) = arguments
         if got < 0:
             return Verdict("exact", False, 0 if x < 2 else None, "definition",
                            f"a count cannot be negative (got {got})")
         try:
-            return _verdict(claims.check_count(function, x, got, budget=budget))
+            if memory is None:
+                return _verdict(claims.check_count(function, x, got, budget=budget))
+            try:
+                expected, provenance = memory.exact(x, budget)
+            except OutOfReachError:
+                return _verdict(claims.check_count(function, x, got, budget=budget))
+            passed = got == expected
+            return Verdict("exact", passed, expected, provenance,
+                           "" if passed else f"got {got}, expected {expected}")
         except OutOfReachError as error:
             return Verdict("proven-interval", True, None, "none", str(error), reach=False)
 
     return judge
+
+
+def count_memory(function: str):
+    """The factory of a run's memory of exact counts (:attr:`Role.memory`)."""
+    return lambda: KnownCounts(function)
 
 
 def count_relations(function: str):

@@ -81,7 +81,10 @@ class Role:
     argument (each argument, for arity 2).  ``counting`` roles are non-decreasing
     functions of their argument, which is what makes bisection to a first
     divergence meaningful.  ``magnitude`` maps arguments to the size used for the
-    declared domain (``--max``) and for ordering.
+    declared domain (``--max``) and for ordering.  ``memory``, when given, makes
+    what the judge may remember during one run (exact values already computed,
+    from which nearby ones come cheaply); the engine then passes it to ``judge``
+    as the keyword ``memory``.
     """
 
     name: str
@@ -94,6 +97,7 @@ class Role:
     invalid_inputs: tuple[tuple[int, ...], ...] = ()
     relations: Callable[[dict, Conventions, float | None], list] | None = None
     families: tuple[str, ...] = field(default=())
+    memory: Callable[[], object] | None = None
 
     def magnitude(self, arguments: Sequence[int]) -> int:
         return max(arguments)

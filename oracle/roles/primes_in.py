@@ -1,8 +1,10 @@
 """The primes_in role: primes_in(a, b), all primes a ≤ p ≤ b in ascending order.
 
 The listing must be sorted, without repeats and complete: it is compared with
-the oracle's sieve, and the first missing or extra prime is reported.  With the
-``half-open`` convention the interval is [a, b).
+the oracle's listing -- its sieve, or high up, for a short interval, its
+verdict on each number (deterministic Miller–Rabin below the published bound,
+Baillie–PSW above) -- and the first missing or extra prime is reported.  With
+the ``half-open`` convention the interval is [a, b).
 """
 
 from __future__ import annotations
@@ -15,9 +17,26 @@ def _normalise(raw: object, conventions: Conventions) -> list[int]:
     return as_integer_sequence(raw)
 
 
+#: Above this height a short interval is listed by testing each number: sieving it would
+#: first need every prime up to the square root (about 2 s near 2**64).
+TEST_EACH_ABOVE = 2**40
+#: Longest interval listed by testing each number.
+TEST_EACH_SPAN = 2**14
+
+
 def expected_primes(a: int, b: int, conventions: Conventions) -> list[int]:
+    return expected_listing(a, b, conventions)[0]
+
+
+def expected_listing(a: int, b: int, conventions: Conventions) -> tuple[list[int], str]:
+    """The primes of the interval and the provenance of the listing."""
     upper = b - 1 if conventions.primes_range == "half-open" else b
-    return facade.primes(a, upper)
+    if upper >= TEST_EACH_ABOVE and upper - a <= TEST_EACH_SPAN:
+        verdicts = [facade.answer("is_prime", n) for n in range(max(a, 0), upper + 1)]
+        listed = [verdict.arguments[0] for verdict in verdicts if verdict.value]
+        probable = any(verdict.provenance == "probable" for verdict in verdicts)
+        return listed, "probable" if probable else "deterministic"
+    return facade.primes(a, upper), "sieve"
 
 
 def first_difference(got: list[int], expected: list[int]) -> str:
@@ -40,10 +59,10 @@ def first_difference(got: list[int], expected: list[int]) -> str:
 
 def _judge(arguments: tuple, got: list[int], conventions: Conventions, budget: float | None) -> Verdict:
     a, b = arguments
-    expected = expected_primes(a, b, conventions)
+    expected, provenance = expected_listing(a, b, conventions)
     if got == expected:
-        return Verdict("listing", True, expected, "sieve")
-    return Verdict("listing", False, expected, "sieve", first_difference(got, expected))
+        return Verdict("listing", True, expected, provenance)
+    return Verdict("listing", False, expected, provenance, first_difference(got, expected))
 
 
 ROLE = Role(

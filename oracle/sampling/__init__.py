@@ -20,15 +20,17 @@ from dataclasses import dataclass
 from .._integers import require_int
 from ..roles import Role
 from ._families import family, rng_for
-from ._profiles import HEAVY, PROFILES, Profile, profile
+from ._profiles import HEAVY, PROFILES, Profile, heavy_cost, profile
 
-__all__ = ["Sample", "Profile", "PROFILES", "HEAVY", "profile", "sample", "new_seed"]
+__all__ = ["Sample", "Profile", "PROFILES", "HEAVY", "heavy_cost", "profile", "sample", "new_seed"]
 
 #: Longest primes_in interval sampled high up (a candidate lists every prime in it).
 _WINDOW_HIGH = 2**12
 #: Prefix listings primes_in(0, b) are sampled up to this b.
 _PREFIX_LIMIT = 2**21
 _PAIRS_LIMIT = 40
+#: Random intervals below 2^32 are up to 2^_LONGEST_LOW long.
+_LONGEST_LOW = 20
 
 
 @dataclass(frozen=True)
@@ -62,24 +64,32 @@ def sample(role: Role, chosen: Profile, seed: int) -> list[Sample]:
                 seen.add(arguments)
                 found.append(Sample(name, arguments))
     if role.name in HEAVY:
-        found = _thin_heavy(found, HEAVY[role.name], chosen.heavy_points)
+        budget = (chosen.heavy_budget or {}).get(role.name)
+        found = _thin_heavy(found, role.name, chosen.heavy_points, budget)
     return found
 
 
-def _thin_heavy(found: list[Sample], threshold: int, keep: int) -> list[Sample]:
-    """Keep at most ``keep`` points above ``threshold``, taking them in turn from each family,
-    largest first (word-size wraps show at the top of the range)."""
+def _thin_heavy(found: list[Sample], role_name: str, keep: int, budget: int | None) -> list[Sample]:
+    """Keep at most ``keep`` points above the role's :data:`HEAVY` threshold, of total
+    :func:`heavy_cost` at most ``budget``, taking them in turn from each family, largest
+    first (word-size wraps show at the top of the range); a point too costly for what is
+    left of the budget gives way to the next one."""
+    threshold = HEAVY[role_name]
     heavy = [s for s in found if max(s.arguments) > threshold]
-    if len(heavy) <= keep:
-        return found
     by_family: dict[str, list[Sample]] = {}
-    for s in sorted(heavy, key=lambda s: max(s.arguments), reverse=True):
+    for s in sorted(heavy, key=lambda s: (max(s.arguments), s.arguments), reverse=True):
         by_family.setdefault(s.family, []).append(s)
+    left = budget
     kept: set[Sample] = set()
-    while len(kept) < keep:
+    while len(kept) < keep and any(by_family.values()):
         for queue in by_family.values():
-            if queue and len(kept) < keep:
-                kept.add(queue.pop(0))
+            if not queue or len(kept) >= keep:
+                continue
+            s = queue.pop(0)
+            cost = heavy_cost(role_name, max(s.arguments))
+            if left is None or cost <= left:
+                kept.add(s)
+                left = None if left is None else left - cost
     return [s for s in found if max(s.arguments) <= threshold or s in kept]
 
 
@@ -92,7 +102,8 @@ def _intervals(name: str, values: list[int], ceiling: int, chosen: Profile, rng)
     if name in ("uniform", "log-uniform"):
         result = []
         for a in values:
-            length = int(2 ** rng.uniform(0, 16 if a < 2**32 else 12))
+            # long intervals low down cross the seams of segmented sieves (2^15 ... 2^20 wide)
+            length = int(2 ** rng.uniform(0, _LONGEST_LOW if a < 2**32 else 12))
             result.append((a, min(a + length, ceiling)))
         return result
     result = []
@@ -101,5 +112,7 @@ def _intervals(name: str, values: list[int], ceiling: int, chosen: Profile, rng)
         result.append((c, c))
         result.append((max(c - 30, 0), c + 30))
         if c <= _PREFIX_LIMIT and name in ("segments", "boundaries"):
+            # from 0, and from 1: segments laid from an odd start put their seams on odd numbers
             result.append((0, c))
+            result.append((1, c))
     return [(a, b) for a, b in result if b <= ceiling]

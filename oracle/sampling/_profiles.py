@@ -5,18 +5,35 @@ answer every sampled point within the profile's time (ci: ≤ 60 s per role on
 2 cores), so counting roles, whose candidates sieve up to x, stop lower than
 primality roles, whose candidates cost little at any size.  Every ceiling still
 lies above 2³², where 32-bit counters wrap (common practice).
+
+Above :data:`HEAVY` a single call of a typical candidate costs a noticeable
+fraction of a second, growing with the argument as :data:`HEAVY_COST` says (a
+sieve up to x costs about x; a short interval [a, b] costs about √b, for the
+sieving primes).  Points up there are kept within ``heavy_budget``, a total of
+that cost per role, so that the profile's time is spent on many cheap points
+and a few expensive ones rather than the other way round.
 """
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 
 from .._errors import InvalidInputError
 
-__all__ = ["Profile", "PROFILES", "profile", "HEAVY"]
+__all__ = ["Profile", "PROFILES", "profile", "HEAVY", "HEAVY_COST", "heavy_cost"]
 
-#: Arguments above which a counting candidate typically needs a second or more.
-HEAVY = {"prime_pi": 2**30, "twin_pi": 2**30, "nth_prime": 2**25}
+#: Largest argument below which a typical candidate answers in milliseconds.
+HEAVY = {"prime_pi": 2**30, "twin_pi": 2**30, "nth_prime": 2**25, "primes_in": 2**48}
+
+#: How the cost of one heavy call grows with its largest argument m: ``linear`` (a sieve
+#: up to m) or ``root`` (sieving a short interval below m needs the primes up to √m).
+HEAVY_COST = {"prime_pi": "linear", "twin_pi": "linear", "nth_prime": "linear", "primes_in": "root"}
+
+
+def heavy_cost(role_name: str, magnitude: int) -> int:
+    """The cost of one call at ``magnitude`` in the units of ``heavy_budget``."""
+    return math.isqrt(magnitude) if HEAVY_COST[role_name] == "root" else magnitude
 
 
 @dataclass(frozen=True)
@@ -27,9 +44,12 @@ class Profile:
     smaller limit for primes_in).  ``random_points``: uniform and log-uniform
     points each.  ``reask``: answers asked a second time to catch nondeterminism.
     ``timeout``: default seconds per call.  ``time_budget``: seconds after which
-    the remaining points are reported as not run.  ``heavy_points``: for the
-    counting roles, how many points above :data:`HEAVY` (where a candidate's
-    sieve takes about a second) are kept, spread over the families.
+    the remaining points are reported as not run.  ``heavy_points``: how many
+    points above :data:`HEAVY` are kept at most, spread over the families;
+    ``heavy_budget``: the total :func:`heavy_cost` they may have, per role.
+    ``enough_findings``: after this many findings the role has clearly failed;
+    the remaining points are skipped (and reported so) and only the work of
+    localising the first divergence is done (``None``: ask every point).
     """
 
     name: str
@@ -41,25 +61,33 @@ class Profile:
     ceilings: dict
     boundary_exponents: tuple[int, ...]
     heavy_points: int = 24
+    heavy_budget: dict | None = None
+    enough_findings: int | None = None
     bisect: bool = True
 
 
 _PRIMALITY_CEILING = 2**64 + 2**20
-_CI_CEILINGS = {"prime_pi": 2**33 + 2**20, "twin_pi": 2**33 + 2**20, "nth_prime": 2**28,
+_CI_CEILINGS = {"prime_pi": 2**32 + 2**20, "twin_pi": 2**32 + 2**20, "nth_prime": 2**28,
                 "is_prime": 2**128, "next_prime": _PRIMALITY_CEILING,
                 "prev_prime": _PRIMALITY_CEILING, "primes_in": 2**64, "factor": 2**66}
+#: About 6-8 calls near 2³² for the counting roles, 8 near 2²⁸ for nth_prime, 5 intervals
+#: near 2⁶⁴ for primes_in (primesieve needs about 2 s for one of those).
+_CI_HEAVY_BUDGET = {"prime_pi": 8 * 2**32, "twin_pi": 6 * 2**32, "nth_prime": 8 * 2**28,
+                    "primes_in": 5 * 2**32}
 
 PROFILES = {
     "quick": Profile("quick", exhaustive=300, random_points=10, reask=3, timeout=5.0, heavy_points=6,
-                     time_budget=20.0,
+                     time_budget=20.0, enough_findings=10,
+                     heavy_budget={name: cost // 4 for name, cost in _CI_HEAVY_BUDGET.items()},
                      ceilings={**_CI_CEILINGS, "prime_pi": 2**32 + 2**16, "twin_pi": 2**32 + 2**16,
                                "nth_prime": 2**28},
                      boundary_exponents=(8, 15, 16, 31, 32, 63, 64)),
     "ci": Profile("ci", exhaustive=3000, random_points=40, reask=12, timeout=10.0,
-                  time_budget=60.0, ceilings=_CI_CEILINGS,
+                  time_budget=60.0, ceilings=_CI_CEILINGS, heavy_budget=_CI_HEAVY_BUDGET,
+                  enough_findings=20,
                   boundary_exponents=(8, 15, 16, 20, 24, 31, 32, 33, 53, 63, 64)),
     "deep": Profile("deep", exhaustive=100_000, random_points=400, reask=50, timeout=60.0, heavy_points=400,
-                    time_budget=1800.0,
+                    time_budget=1800.0, enough_findings=500,
                     ceilings={**_CI_CEILINGS, "prime_pi": 2**40, "twin_pi": 2**38,
                               "nth_prime": 2**34, "factor": 2**100},
                     boundary_exponents=tuple(range(3, 66))),

@@ -2,15 +2,14 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from typing import NamedTuple
 
 __all__ = ["CallResult", "OK", "RAISED", "TIMEOUT", "CRASHED"]
 
 OK, RAISED, TIMEOUT, CRASHED = "ok", "raised", "timeout", "crashed"
 
 
-@dataclass(frozen=True)
-class CallResult:
+class CallResult(NamedTuple):
     """``status`` is ``ok`` (``value`` holds the raw answer), ``raised`` (the candidate
     signalled an error: ``error`` says which), ``timeout`` (no answer within the
     per-call limit) or ``crashed`` (the process died: ``error`` says how)."""

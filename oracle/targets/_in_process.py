@@ -25,10 +25,6 @@ class _CallTimedOut(BaseException):
     the candidate does not swallow it."""
 
 
-def _on_alarm(signum, frame):
-    raise _CallTimedOut()
-
-
 def materialise(value: object) -> object:
     """Consume a lazy iterator (a generator) so that its work is timed with the call."""
     if hasattr(value, "__next__"):
@@ -37,7 +33,12 @@ def materialise(value: object) -> object:
 
 
 class InProcessTarget:
-    """Calls ``function(*arguments)`` directly."""
+    """Calls ``function(*arguments)`` directly.
+
+    Each call arms the timer afresh (which replaces the previous call's timer) and
+    the timer is disarmed once, after the last call of a batch; an alarm that goes
+    off between two calls finds no call running and is ignored.
+    """
 
     isolated = False
 
@@ -45,10 +46,15 @@ class InProcessTarget:
         self.function = function
         self.timeout = timeout
         self.description = description
+        self._calling = False
+
+    def _on_alarm(self, signum, frame):
+        if self._calling:
+            raise _CallTimedOut()
 
     def call_many(self, calls: Sequence[tuple[int, ...]]) -> list[CallResult]:
         alarm = threading.current_thread() is threading.main_thread()
-        previous = signal.signal(signal.SIGALRM, _on_alarm) if alarm else None
+        previous = signal.signal(signal.SIGALRM, self._on_alarm) if alarm else None
         try:
             return [self._call(arguments, alarm) for arguments in calls]
         finally:
@@ -62,11 +68,11 @@ class InProcessTarget:
         try:
             if alarm:
                 signal.setitimer(signal.ITIMER_REAL, timeout)
+            self._calling = True
             try:
                 value = materialise(function(*arguments))
             finally:
-                if alarm:
-                    signal.setitimer(signal.ITIMER_REAL, 0)
+                self._calling = False
         except _CallTimedOut:
             return CallResult(TIMEOUT, error=f"no answer within {timeout:g} s",
                               seconds=time.perf_counter() - started)
