@@ -1,0 +1,114 @@
+"""Benchmark of oracle.exact.combinatorial.prime_pi against reference libraries.
+
+Run as a script (pytest does not collect it):
+
+    python tests/bench_combinatorial.py            # all measurements (about a minute)
+    python tests/bench_combinatorial.py --quick    # skip the 10**16 runs
+
+Every ratio compares two timings taken in this same run on this machine, so a
+busy or slow machine affects both sides.  The targets come from issue 3:
+
+* against primecountpy's prime_pi at 10**14 and 10**16: goal within 5x, minimum 20x;
+* against sympy.primepi at 10**11: goal 100x faster, minimum 30x;
+* peak resident memory of prime_pi(10**16) at most 1 GiB.
+
+The reference libraries are only used here and in the tests, never by the oracle.
+"""
+
+from __future__ import annotations
+
+import argparse
+import subprocess
+import sys
+import time
+
+GIB = 1 << 30
+
+
+def timed(function, argument, repeats: int) -> tuple[float, int]:
+    """Best wall time of ``repeats`` calls, and the value returned."""
+    best, value = float("inf"), None
+    for _ in range(repeats):
+        started = time.perf_counter()
+        value = function(argument)
+        best = min(best, time.perf_counter() - started)
+    return best, value
+
+
+def peak_memory_of(x_expression: str) -> tuple[int, int]:
+    """Peak RSS in bytes of a fresh interpreter computing prime_pi(x), and of one that
+    only imports the package (the difference is what the computation itself needs).
+
+    The child reads its own high-water mark (``VmHWM`` in /proc/self/status on
+    Linux), which, unlike ``ru_maxrss``, does not inherit the parent's size.
+    """
+    template = ("import resource, oracle.exact.combinatorial as c\n"
+                "{work}\n"
+                "try:\n"
+                "    line = [l for l in open('/proc/self/status') if l.startswith('VmHWM')][0]\n"
+                "    print(int(line.split()[1]))\n"
+                "except OSError:\n"
+                "    print(resource.getrusage(resource.RUSAGE_SELF).ru_maxrss)\n")
+    results = []
+    for work in (f"c.prime_pi({x_expression})", "pass"):
+        out = subprocess.run([sys.executable, "-c", template.format(work=work)],
+                             check=True, capture_output=True, text=True).stdout
+        results.append(int(out.split()[-1]) * 1024)    # both are in KiB on Linux
+    return results[0], results[1]
+
+
+def verdict(ratio: float, goal: float, minimum: float, higher_is_better: bool) -> str:
+    if higher_is_better:
+        return "goal met" if ratio >= goal else ("minimum met" if ratio >= minimum else "MISSED")
+    return "goal met" if ratio <= goal else ("minimum met" if ratio <= minimum else "MISSED")
+
+
+def main() -> int:
+    parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    parser.add_argument("--quick", action="store_true", help="skip the 10**16 measurements")
+    parser.add_argument("--repeats", type=int, default=3, help="repeats of the short runs")
+    arguments = parser.parse_args()
+
+    # Measured first, while this process is still small (see peak_memory_of).
+    memory = None if arguments.quick else peak_memory_of("10**16")
+
+    import sympy
+    from primecountpy import primecount
+
+    from oracle.exact import combinatorial
+
+    combinatorial.prime_pi(10**8)                     # warm the caches and imports
+    rows = []
+    points = [(14, arguments.repeats)] + ([] if arguments.quick else [(16, 1)])
+    for exponent, repeats in points:
+        x = 10**exponent
+        ours, value = timed(combinatorial.prime_pi, x, repeats)
+        reference, expected = timed(primecount.prime_pi, x, max(repeats, 3))
+        assert value == expected, f"prime_pi(10**{exponent}) = {value}, primecountpy says {expected}"
+        ratio = ours / reference
+        rows.append((f"prime_pi(10**{exponent}) vs primecountpy", ours, reference,
+                     f"{ratio:.1f}x slower", verdict(ratio, 5, 20, higher_is_better=False)))
+
+    x = 10**11
+    ours, value = timed(combinatorial.prime_pi, x, arguments.repeats)
+    reference, expected = timed(lambda n: int(sympy.primepi(n)), x, 1)
+    assert value == expected, f"prime_pi(10**11) = {value}, sympy says {expected}"
+    speedup = reference / ours
+    rows.append(("prime_pi(10**11) vs sympy.primepi", ours, reference,
+                 f"{speedup:.0f}x faster", verdict(speedup, 100, 30, higher_is_better=True)))
+
+    print(f"{'measurement':<38} {'ours (s)':>10} {'reference (s)':>14}  {'ratio':<14} result")
+    for name, ours, reference, ratio, result in rows:
+        print(f"{name:<38} {ours:>10.3f} {reference:>14.3f}  {ratio:<14} {result}")
+
+    if memory is not None:
+        peak, baseline = memory
+        result = "met" if peak <= GIB else "MISSED"
+        print(f"peak RSS of prime_pi(10**16): {peak / 2**20:.0f} MiB "
+              f"(interpreter with imports alone: {baseline / 2**20:.0f} MiB); "
+              f"target <= 1024 MiB: {result}")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
