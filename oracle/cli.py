@@ -311,8 +311,12 @@ def _audit(arguments) -> int:
                                   maximum=maximum, conventions=_conventions(arguments),
                                   corpus=None if arguments.no_corpus else arguments.corpus,
                                   stream=arguments.stream)
+    from . import report
+
     try:
-        summary = engine.run_audit(target, options, kind=kind)
+        with report.Progress(description=f"{role} checks") as progress:
+            options.on_record = progress.observe
+            summary = engine.run_audit(target, options, kind=kind)
     finally:
         target.close()
     _print_summary(summary)
@@ -320,7 +324,7 @@ def _audit(arguments) -> int:
         print(f"results: {arguments.stream}")
     _write_json(arguments.json_file, summary)
     if arguments.report:
-        _write_report(arguments.report, summary)
+        _write_report(arguments.report, summary, arguments.stream, " ".join(sys.argv[1:]))
     if not summary["passed"]:
         return EXIT_FAILED
     if summary["checks"] == 0 and summary["skipped"].get("out of the oracle's reach"):
@@ -430,17 +434,25 @@ def _write_json(path, data) -> None:
             json.dump(data, handle, indent=1)
 
 
-def _write_report(directory: str, summary: dict) -> None:
+def _write_report(directory: str, summary: dict, stream: str | None, command: str) -> None:
+    """summary.json, report.txt and, from the run's records, the self-contained report.html."""
     import contextlib
     import io
 
+    from . import engine, report
+
     os.makedirs(directory, exist_ok=True)
-    _write_json(os.path.join(directory, "summary.json"), summary)
+    report.write_json(summary, os.path.join(directory, "summary.json"))
     text = io.StringIO()
     with contextlib.redirect_stdout(text):
         _print_summary(summary)
     with open(os.path.join(directory, "report.txt"), "w", encoding="utf-8") as handle:
         handle.write(text.getvalue())
+    if stream and os.path.exists(stream):
+        page = os.path.join(directory, "report.html")
+        report.write_html([(summary, engine.read_records(stream))], page,
+                          command=f"ntoracle {command}")
+        print(f"report: {page}")
 
 
 def _show(value) -> str:

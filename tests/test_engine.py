@@ -108,9 +108,11 @@ def test_interrupted_stream_rebuilds_the_summary(tmp_path):
     cut = tmp_path / "cut.jsonl"
     cut.write_text("\n".join(lines[:cut_at]) + "\n" + lines[cut_at][:17])   # killed mid-write
     partial = engine.rebuild_summary(cut)
-    # line 0 is the start record, then checks up to the first failure; the next line is torn
-    assert cut_at > 100 and all(r["type"] == "check" for r in records[1:cut_at])
-    assert not partial["complete"] and partial["checks"] == cut_at - 1
+    # line 0 is the start record, line 1 the plan, then checks up to the first failure;
+    # the next line is torn
+    assert records[1]["type"] == "plan" and records[1]["points"] > 100
+    assert cut_at > 100 and all(r["type"] == "check" for r in records[2:cut_at])
+    assert not partial["complete"] and partial["checks"] == cut_at - 2
     assert partial["seed"] == 3 and not partial["passed"]
     assert partial["failures"] == summary["failures"][:1]
     json.dumps(partial)
@@ -142,3 +144,17 @@ def test_replay_asks_every_point_even_after_many_findings(tmp_path):
     finally:
         target.close()
     assert len(summary["failures"]) == 100
+
+
+def test_every_record_reaches_the_on_record_callback(tmp_path):
+    seen = []
+    audit("_candidates:prime_pi_from_1000", "prime_pi", tmp_path, maximum=3000,
+          on_record=seen.append)
+    assert seen == engine.read_records(tmp_path / "r.jsonl")
+    from oracle.report import Progress
+
+    progress = Progress(description="replayed", quiet=True)
+    for record in seen:
+        progress.observe(record)
+    assert progress.completed == sum(1 for r in seen if r["type"] == "check")
+    assert progress.total == max(seen[1]["points"], progress.completed)

@@ -47,7 +47,9 @@ def run_demo(report_dir: str | Path = "ntoracle-report", *, seed: int = DEMO_SEE
                                       timeout=profile.timeout, maximum=entry.maximum,
                                       stream=str(results))
         try:
-            summary = engine.run_audit(target, options)
+            with report.Progress(description=f"{role} checks", quiet=quiet) as progress:
+                options.on_record = progress.observe
+                summary = engine.run_audit(target, options)
         finally:
             target.close()
         runs.append((summary, engine.read_records(results)))

@@ -33,6 +33,7 @@ from __future__ import annotations
 import random
 import time
 from dataclasses import dataclass, field
+from typing import Callable
 
 from .. import roles as roles_module
 from .. import sampling
@@ -99,6 +100,7 @@ class AuditOptions:
     stream: str | None = None
     oracle_budget: float = 10.0
     time_budget: float | None = None
+    on_record: Callable[[dict], None] | None = None    # called with every record written
 
 
 class _Run:
@@ -371,7 +373,7 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
     role = roles_module.get(options.role)
     if options.timeout is None:
         options.timeout = chosen.timeout
-    stream = RecordStream(options.stream)
+    stream = RecordStream(options.stream, on_record=options.on_record)
     run = _Run(target, options, stream)
     try:
         stream.write({"type": "start", "target": target.description, "role": role.name,
@@ -391,6 +393,8 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
             samples = sorted(sampling.sample(role, chosen, seed),
                              key=lambda s: role.magnitude(s.arguments))
             replayed = {arguments for _, arguments in corpus_points}
+            stream.write({"type": "plan", "points": len(corpus_points) + len(samples)
+                          + len(role.invalid_inputs), "elapsed": run.elapsed()})
             run.ask([(s.family, s.arguments) for s in samples if s.arguments not in replayed])
             run.ask_invalid([("invalid-input", arguments) for arguments in role.invalid_inputs])
             run.reask(seed)

@@ -1,6 +1,7 @@
 """Results as JSON-lines records, written as they happen, and the summary rebuilt from them.
 
-One record a line: ``start`` (target, role, profile, seed, settings), ``check``
+One record a line: ``start`` (target, role, profile, seed, settings), ``plan``
+(how many points are about to be asked), ``check``
 (one call judged: status, check, family, arguments, got, expected, provenance,
 detail, seconds), ``skipped`` (how many points were not run, and why),
 ``divergence`` (the localised first failure) and ``end``.  Each line is flushed
@@ -38,10 +39,15 @@ def jsonable(value: object) -> object:
 
 
 class RecordStream:
-    """Appends records to a JSON-lines file (or only keeps them, with ``path=None``)."""
+    """Appends records to a JSON-lines file (or only keeps them, with ``path=None``).
 
-    def __init__(self, path: str | os.PathLike | None):
+    ``on_record``, when given, is called with each record after it is written
+    (a progress display, for instance).
+    """
+
+    def __init__(self, path: str | os.PathLike | None, on_record=None):
         self.records: list[dict] = []
+        self._on_record = on_record
         self._file = None
         if path is not None:
             Path(path).parent.mkdir(parents=True, exist_ok=True)
@@ -52,6 +58,8 @@ class RecordStream:
         if self._file is not None:
             self._file.write(json.dumps(record) + "\n")
             self._file.flush()
+        if self._on_record is not None:
+            self._on_record(record)
 
     def close(self) -> None:
         if self._file is not None:

@@ -101,9 +101,11 @@ class Progress:
             self._display.update(self._task, completed=self.completed)
 
     def observe(self, record: dict) -> None:
-        """Advance by one for each ``check`` record of a run (other records are ignored)."""
+        """Follow a run's records: a ``plan`` sets the total, each ``check`` advances by one."""
         if record.get("type") == "check":
             self.advance()
+        elif record.get("type") == "plan":
+            self.set_total(max(int(record["points"]), self.completed))
 
     def _show(self) -> None:
         if not self.shown:
