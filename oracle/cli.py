@@ -119,6 +119,8 @@ def _add_audit_parser(commands) -> None:
     audit.add_argument("--max", dest="maximum", metavar="N",
                        help="the largest input the target claims to handle; checks above are skipped")
     audit.add_argument("--json", dest="json_file", metavar="FILE", help="write the summary as JSON")
+    audit.add_argument("--quiet", action="store_true",
+                       help="for CI logs: no progress display, only the verdict and first divergence")
     audit.add_argument("--report", metavar="DIR", help="write summary.json and report.txt into DIR")
     audit.add_argument("--stream", metavar="FILE", default=os.path.join(".ntoracle", "last-audit.jsonl"),
                        help="JSON-lines file of results, written as they happen "
@@ -175,13 +177,22 @@ def main(argv: list[str] | None = None) -> int:
         return 4
 
 
+_PROGRESS_STEPS = 1000
+
+
 def _value(arguments) -> int:
     from . import facade
 
     n = parse_integer(arguments.n)
     if arguments.budget is not None and not arguments.budget > 0:
         raise InvalidInputError(f"--budget {arguments.budget}: must be a positive number of seconds")
-    result = facade.answer(arguments.function, n, budget=arguments.budget)
+    from . import report
+
+    with report.Progress(total=_PROGRESS_STEPS, description=f"{arguments.function}({n})") as shown:
+        def progress(fraction: float, stage: str) -> None:
+            shown.advance(max(0, round(fraction * _PROGRESS_STEPS) - shown.completed))
+
+        result = facade.answer(arguments.function, n, budget=arguments.budget, progress=progress)
     if arguments.json:
         print(json.dumps(result.as_dict()))
     else:
@@ -314,12 +325,12 @@ def _audit(arguments) -> int:
     from . import report
 
     try:
-        with report.Progress(description=f"{role} checks") as progress:
+        with report.Progress(description=f"{role} checks", quiet=arguments.quiet) as progress:
             options.on_record = progress.observe
             summary = engine.run_audit(target, options, kind=kind)
     finally:
         target.close()
-    _print_summary(summary)
+    _print_summary(summary, listed=0 if arguments.quiet else 20)
     if arguments.stream:
         print(f"results: {arguments.stream}")
     _write_json(arguments.json_file, summary)
@@ -402,15 +413,16 @@ def _describe(failure: dict) -> str:
     return text
 
 
-def _print_summary(summary: dict) -> None:
+def _print_summary(summary: dict, listed: int = 20) -> None:
+    """The verdict, the first ``listed`` findings, the first divergence, skips and timings."""
     failures = summary["failures"]
     verdict = "PASSED" if summary["passed"] else "FAILED"
     print(f"{verdict}: {summary['passed_checks']} of {summary['checks']} checks passed, "
           f"{len(failures)} finding(s)" + ("" if summary["complete"] else " (run interrupted)"))
-    for failure in failures[:20]:
+    for failure in failures[:listed]:
         print("  " + _describe(failure))
-    if len(failures) > 20:
-        print(f"  ... and {len(failures) - 20} more (see the results file)")
+    if len(failures) > listed:
+        print(f"  ... and {len(failures) - listed} more (see the results file)")
     divergence = summary["first_divergence"]
     if divergence:
         where = divergence.get("prime", divergence.get("input"))

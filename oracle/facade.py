@@ -111,9 +111,13 @@ class FactorizationReport:
 # Counting functions
 # --------------------------------------------------------------------------- #
 
-def pi(x: int, *, budget: float | None = None) -> int:
-    """π(x), the number of primes p ≤ x (0 for x < 2)."""
-    return _pi(x, budget).value
+def pi(x: int, *, budget: float | None = None, progress=None) -> int:
+    """π(x), the number of primes p ≤ x (0 for x < 2).
+
+    ``progress``, if given, is called as ``progress(fraction_done, stage)`` during a
+    long combinatorial computation.
+    """
+    return _pi(x, budget, progress).value
 
 
 def twin_pi(x: int, *, budget: float | None = None) -> int:
@@ -136,9 +140,9 @@ def count(kind: str, a: int, b: int, *, budget: float | None = None) -> int:
     return _count(_check_kind(kind), a, b, budget).value
 
 
-def nth_prime(n: int, *, budget: float | None = None) -> int:
-    """p_n, the n-th prime: nth_prime(1) = 2."""
-    return _nth_prime(n, budget).value
+def nth_prime(n: int, *, budget: float | None = None, progress=None) -> int:
+    """p_n, the n-th prime: nth_prime(1) = 2 (``progress`` as for :func:`pi`)."""
+    return _nth_prime(n, budget, progress).value
 
 
 # --------------------------------------------------------------------------- #
@@ -207,11 +211,11 @@ FUNCTIONS = {
 }
 
 
-def answer(function: str, *arguments, budget: float | None = None) -> Answer:
+def answer(function: str, *arguments, budget: float | None = None, progress=None) -> Answer:
     """The exact answer with its provenance, e.g. ``answer("pi", 10**11 + 5)``.
 
     ``function`` is a key of :data:`FUNCTIONS`; ``answer("count", kind, a, b)``
-    counts constellations of ``kind`` in [a, b].
+    counts constellations of ``kind`` in [a, b]; ``progress`` as for :func:`pi`.
     """
     if function not in FUNCTIONS:
         raise InvalidInputError(
@@ -220,13 +224,13 @@ def answer(function: str, *arguments, budget: float | None = None) -> Answer:
         raise InvalidInputError(
             f"{function} takes {FUNCTIONS[function]} argument(s), got {len(arguments)}")
     if function == "pi":
-        return _pi(arguments[0], budget)
+        return _pi(arguments[0], budget, progress)
     if function == "twin_pi":
         return _tuplet_pi("twins", arguments[0], budget)
     if function in TUPLET_KINDS:
         return _tuplet_pi(function, arguments[0], budget)
     if function == "nth_prime":
-        return _nth_prime(arguments[0], budget)
+        return _nth_prime(arguments[0], budget, progress)
     if function == "is_prime":
         return _is_prime(arguments[0])
     if function == "next_prime":
@@ -241,13 +245,13 @@ def answer(function: str, *arguments, budget: float | None = None) -> Answer:
 # Routes
 # --------------------------------------------------------------------------- #
 
-def _pi(x, budget) -> Answer:
+def _pi(x, budget, progress=None) -> Answer:
     x = require_int("x", x)
     budget = _budget(budget)
     if x < 2:
         return Answer("pi", (x,), 0, "sieve")
     candidates = [_route_by_table("pi", "primes", x, budget),
-                  _route_by_combinatorial(x, budget),
+                  _route_by_combinatorial(x, budget, progress),
                   _route_by_sieve("primes", x, budget)]
     return _cheapest("pi", x, candidates, budget)
 
@@ -286,7 +290,7 @@ def _count(kind, a, b, budget) -> Answer:
         f"{budget:g} s and no exact method counts {kind} over it")
 
 
-def _nth_prime(n, budget) -> Answer:
+def _nth_prime(n, budget, progress=None) -> Answer:
     n = require_int("n", n, minimum=1)
     budget = _budget(budget)
     from . import tables
@@ -302,7 +306,7 @@ def _nth_prime(n, budget) -> Answer:
         return Answer("nth_prime", (n,), int(found[n - 1]), "sieve")
     combinatorial = _combinatorial()
     if combinatorial is not None:
-        value = combinatorial.nth_prime(n, time_budget=budget)
+        value = combinatorial.nth_prime(n, time_budget=budget, progress=progress)
         return Answer("nth_prime", (n,), value, "combinatorial")
     raise OutOfReachError(f"nth_prime({n}): beyond what the sieve reaches within "
                           f"{budget:g} s, and the combinatorial method is not available")
@@ -442,12 +446,13 @@ def _route_by_sieve(kind: str, x: int, budget: float) -> _Route | None:
     return _Route(seconds, lambda: _sieve_count(kind, 0, x))
 
 
-def _route_by_combinatorial(x: int, budget: float) -> _Route | None:
+def _route_by_combinatorial(x: int, budget: float, progress=None) -> _Route | None:
     combinatorial = _combinatorial()
     if combinatorial is None or x > combinatorial.MAX_X:
         return None
     seconds = combinatorial.estimated_seconds(x)
-    return _Route(seconds, lambda: (combinatorial.prime_pi(x, time_budget=budget), "combinatorial"))
+    return _Route(seconds, lambda: (combinatorial.prime_pi(x, time_budget=budget, progress=progress),
+                                    "combinatorial"))
 
 
 def _combinatorial():

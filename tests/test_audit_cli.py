@@ -72,3 +72,23 @@ def test_role_inferred_from_the_function_name(capsys, in_tmp):
     code, out, _ = run(capsys, "audit", "_candidates:is_prime", "--profile", "quick", "--seed", "1",
                        "--no-corpus", "--max", "10**6")
     assert code == 0 and "as is_prime" in out
+
+
+def test_quiet_audit_lists_no_findings_but_keeps_verdict_and_divergence(capsys, in_tmp):
+    code, out, err = run(capsys, "audit", "_candidates:nth_prime_zero_based", "--role", "nth_prime",
+                         "--profile", "quick", "--seed", "1", "--max", "5000", "--quiet",
+                         "--no-corpus")
+    assert code == 1
+    assert "FAILED" in out and "first divergence: [1]" in out
+    assert not [line for line in out.splitlines() if line.startswith("  wrong")]
+    assert "\x1b[" not in out + err
+
+
+def test_report_directory_holds_the_html_report(capsys, in_tmp):
+    code, out, _ = run(capsys, "audit", "_candidates:nth_prime_zero_based", "--role", "nth_prime",
+                       "--profile", "quick", "--seed", "1", "--max", "5000", "--no-corpus",
+                       "--report", "rep")
+    assert code == 1
+    page = (in_tmp / "rep" / "report.html").read_text()
+    assert "data:image/png;base64," in page and "nth_prime" in page
+    assert json.loads((in_tmp / "rep" / "summary.json").read_text())["passed"] is False
