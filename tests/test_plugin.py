@@ -305,7 +305,11 @@ def test_hypothesis_profile_loaded_only_when_asked(pytester):
     pytester.makepyfile(test_settings=check.format("ntoracle-ci"))
     pytester.runpytest_subprocess(*PLUGIN, "--ntoracle-hypothesis-profile", "ntoracle-ci").assert_outcomes(passed=1)
     pytester.runpytest_subprocess(*PLUGIN, "--hypothesis-profile", "ntoracle-ci").assert_outcomes(passed=1)
-    pytester.makepyfile(test_settings=check.format("default"))
+    # Not asked: the profile hypothesis itself chooses (its "ci" profile on a CI machine), the
+    # same as in this very session, where nothing loads a profile.
+    from hypothesis import settings
+
+    pytester.makepyfile(test_settings=check.format(settings.get_current_profile_name()))
     pytester.runpytest_subprocess(*PLUGIN).assert_outcomes(passed=1)
 
 
