@@ -61,6 +61,12 @@ _SIEVE_SECONDS_PER_INTEGER = {"primesieve": 6e-11, "numpy": 6e-10}
 # Beyond 2**64 a short interval is sieved by small primes and every survivor
 # is tested with Baillie-PSW; this caps the interval length.
 _SIEVE_MAX_SPAN_BEYOND_64 = 10**8
+# Above _TEST_EACH_ABOVE a short interval is listed by testing each number: a
+# sieve would first need every prime up to the square root (about 2 s near 2**64).
+_TEST_EACH_ABOVE = 2**40
+_TEST_EACH_SPAN = 2**14
+# Longest interval listed above 2**64, where testing each number is the only route.
+_TEST_EACH_MAX_SPAN_BEYOND_64 = 10**6
 _TWO_64 = 2**64
 
 
@@ -70,7 +76,7 @@ class Answer:
 
     function: str
     arguments: tuple[int | str, ...]
-    value: int | bool
+    value: int | bool | list[int]
     provenance: str
 
     def as_dict(self) -> dict:
@@ -166,7 +172,7 @@ def prev_prime(n: int) -> int:
 
 def primes(a: int, b: int) -> list[int]:
     """All primes p with a ≤ p ≤ b, ascending, as Python ints."""
-    return _primes(a, b)[0]
+    return _primes(a, b).value
 
 
 def verify_factorization(n: int, factors) -> FactorizationReport:
@@ -207,7 +213,7 @@ def verify_factorization(n: int, factors) -> FactorizationReport:
 FUNCTIONS = {
     "pi": 1, "twin_pi": 1, "nth_prime": 1, "is_prime": 1, "next_prime": 1,
     "prev_prime": 1, "triplets_026": 1, "triplets_046": 1, "quadruplets": 1,
-    "count": 3,
+    "count": 3, "primes": 2,
 }
 
 
@@ -215,7 +221,8 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
     """The exact answer with its provenance, e.g. ``answer("pi", 10**11 + 5)``.
 
     ``function`` is a key of :data:`FUNCTIONS`; ``answer("count", kind, a, b)``
-    counts constellations of ``kind`` in [a, b]; ``progress`` as for :func:`pi`.
+    counts constellations of ``kind`` in [a, b], ``answer("primes", a, b)`` lists the
+    primes of [a, b]; ``progress`` as for :func:`pi`.
     """
     if function not in FUNCTIONS:
         raise InvalidInputError(
@@ -227,6 +234,8 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
         return _pi(arguments[0], budget, progress)
     if function == "twin_pi":
         return _tuplet_pi("twins", arguments[0], budget)
+    if function == "primes":
+        return _primes(*arguments)
     if function in TUPLET_KINDS:
         return _tuplet_pi(function, arguments[0], budget)
     if function == "nth_prime":
@@ -351,33 +360,39 @@ def _prev_prime(n) -> Answer:
     return Answer("prev_prime", (n,), value, primality.verdict(value))
 
 
-def _primes(a, b) -> tuple[list[int], str]:
+def _primes(a, b) -> Answer:
     a = require_int("a", a, minimum=0)
     b = require_int("b", b)
     if b < a:
-        return [], "sieve"
+        return Answer("primes", (a, b), [], "sieve")
     if b - a > PRIMES_MAX_SPAN:
         raise OutOfReachError(
             f"primes({a}, {b}): the interval is longer than {PRIMES_MAX_SPAN}; "
             f"count them with count('primes', a, b) or ask for shorter pieces")
-    from .exact import primality, sieve
+    short = b - a <= _TEST_EACH_SPAN
+    if b < _TWO_64 and not (b >= _TEST_EACH_ABOVE and short):
+        from .exact import sieve
 
-    if b < _TWO_64:
         found = sieve.primes(a, b)
         if len(found) > PRIMES_MAX_COUNT:
             raise OutOfReachError(f"primes({a}, {b}): {len(found)} primes, more than the "
                                   f"{PRIMES_MAX_COUNT} returned as a list")
-        return [int(p) for p in found.tolist()], "sieve"
-    if b - a > _SIEVE_MAX_SPAN_BEYOND_64 // 100:
+        return Answer("primes", (a, b), [int(p) for p in found.tolist()], "sieve")
+    if b - a > _TEST_EACH_MAX_SPAN_BEYOND_64:
         raise OutOfReachError(
             f"primes({a}, {b}): above 2**64 only intervals up to "
-            f"{_SIEVE_MAX_SPAN_BEYOND_64 // 100} long are listed")
-    found = []
-    candidate = primality.next_prime(a - 1) if a >= 1 else 2
-    while candidate <= b:
-        found.append(candidate)
-        candidate = primality.next_prime(candidate)
-    return found, "probable"
+            f"{_TEST_EACH_MAX_SPAN_BEYOND_64} long are listed")
+    found, provenance = _primes_by_testing_each(a, b)
+    return Answer("primes", (a, b), found, provenance)
+
+
+def _primes_by_testing_each(a: int, b: int) -> tuple[list[int], str]:
+    """The primes of [a, b], each number tested: composites are proven, primes as verdict() says."""
+    from .exact import primality
+
+    found = [n for n in range(max(a, 2), b + 1) if primality.is_prime(n)]
+    probable = bool(found) and primality.verdict(found[-1]) == "probable"
+    return found, "probable" if probable else "deterministic"
 
 
 # --------------------------------------------------------------------------- #

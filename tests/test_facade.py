@@ -225,3 +225,15 @@ def test_import_oracle_does_not_load_heavy_modules():
              " print(sorted(heavy))")
     result = subprocess.run([sys.executable, "-c", probe], capture_output=True, text=True, timeout=60)
     assert result.stdout.strip() == "[]", result.stdout + result.stderr
+
+
+@pytest.mark.parametrize("a, width, provenance", [
+    (10**6, 1000, "sieve"),
+    (2**50, 2000, "deterministic"),        # tested one by one: shorter than a sieve up to 2^25
+    (2**64 - 1000, 2000, "deterministic"),
+    (318665857834031151167461 - 500, 1000, "probable"),   # straddles OEIS A014233(12)
+])
+def test_primes_answer_names_the_route_and_agrees_with_sympy(a, width, provenance):
+    listing = oracle.answer("primes", a, a + width)
+    assert listing.value == list(sympy.primerange(a, a + width + 1))
+    assert listing.provenance == provenance

@@ -17,26 +17,11 @@ def _normalise(raw: object, conventions: Conventions) -> list[int]:
     return as_integer_sequence(raw)
 
 
-#: Above this height a short interval is listed by testing each number: sieving it would
-#: first need every prime up to the square root (about 2 s near 2**64).
-TEST_EACH_ABOVE = 2**40
-#: Longest interval listed by testing each number.
-TEST_EACH_SPAN = 2**14
-
-
-def expected_primes(a: int, b: int, conventions: Conventions) -> list[int]:
-    return expected_listing(a, b, conventions)[0]
-
-
 def expected_listing(a: int, b: int, conventions: Conventions) -> tuple[list[int], str]:
     """The primes of the interval and the provenance of the listing."""
     upper = b - 1 if conventions.primes_range == "half-open" else b
-    if upper >= TEST_EACH_ABOVE and upper - a <= TEST_EACH_SPAN:
-        verdicts = [facade.answer("is_prime", n) for n in range(max(a, 0), upper + 1)]
-        listed = [verdict.arguments[0] for verdict in verdicts if verdict.value]
-        probable = any(verdict.provenance == "probable" for verdict in verdicts)
-        return listed, "probable" if probable else "deterministic"
-    return facade.primes(a, upper), "sieve"
+    listing = facade.answer("primes", a, upper)
+    return listing.value, listing.provenance
 
 
 def first_difference(got: list[int], expected: list[int]) -> str:
