@@ -504,7 +504,10 @@ def _sieve_count(kind: str, a: int, b: int) -> tuple[int, str]:
 
 
 def _span(kind: str) -> int:
-    return {"primes": 0, "twins": 2, "triplets_026": 6, "triplets_046": 6, "quadruplets": 8}[kind]
+    """Distance from the first to the last member of the constellation (2 for twins)."""
+    from .exact import sieve
+
+    return sieve.PATTERNS[kind][-1]
 
 
 def _check_kind(kind) -> str:
