@@ -1,6 +1,6 @@
 """The ``ntoracle`` command line.
 
-Exit codes (DESIGN.md): 0 success; 1 a candidate failed a check; 2 usage,
+Exit codes (docs/DESIGN.md): 0 success; 1 a candidate failed a check; 2 usage,
 configuration or input error; 3 the oracle cannot answer exactly and says what
 it can prove instead.  Integers are parsed without ``eval``
 (:func:`oracle._integers.parse_integer`).

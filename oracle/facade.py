@@ -5,7 +5,7 @@ picks the cheapest *exact* route, and either answers or raises.  It never
 guesses: a question out of exact reach raises :class:`OutOfReachError`, which
 carries the proven interval where the bounds catalogue gives one.
 
-Routes and their provenance labels (DESIGN.md, "The oracle's promise"):
+Routes and their provenance labels (docs/DESIGN.md, "The oracle's promise"):
 
 ``table:<id>``
     a published value from ``fixtures/`` (see :mod:`oracle.tables`);

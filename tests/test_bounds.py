@@ -407,7 +407,7 @@ def test_known_errata_fail_where_the_literature_says(data):
     primes = data["primes"]
     n = np.arange(1, 10001, dtype=np.int64)
     robin = _selfcheck.check_values(bounds.load_catalogue().errata[0], n, primes[:10000])
-    assert robin and robin[0].argument == 7022 and robin[0].exact == 70919   # reference/bounds.md, math.SE 2569128
+    assert robin and robin[0].argument == 7022 and robin[0].exact == 70919   # math.SE question 2569128 (from memory)
     early = next(b for b in bounds.errata() if b.id == "pi-lower-dusart10-2-at-88783")
     failing = {v.argument for v in _selfcheck.check_values(early, data["x"][:100_000], data["pi"][:100_000])}
     assert failing == {88783, 88784, 88785, 88786, 88787, 88788}   # sieve here (bounds.md omits 88783)

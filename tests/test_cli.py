@@ -1,4 +1,4 @@
-"""The ntoracle command line: contract of DESIGN.md (output, JSON keys, exit codes)."""
+"""The ntoracle command line: contract of docs/DESIGN.md (output, JSON keys, exit codes)."""
 
 import json
 import subprocess

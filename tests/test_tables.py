@@ -148,7 +148,7 @@ def test_every_pi_value_is_within_rosser_schoenfeld_bounds():
 
 
 def test_primesieve_counts_twins_with_p_plus_2_at_most_x():
-    # Our convention (DESIGN.md): pairs (p, p + 2), both prime, p + 2 <= x.
+    # Our convention (docs/DESIGN.md): pairs (p, p + 2), both prime, p + 2 <= x.
     # Checked here against a direct count so that the reference is known to agree.
     for x in range(0, 400):
         direct = sum(1 for p in range(2, x - 1) if sympy.isprime(p) and sympy.isprime(p + 2))

@@ -1,7 +1,7 @@
 """Self-validation: does a catalogue entry hold at every exact value we can compute?
 
 Used by the tests (and usable by anyone holding exact data).  Checking many
-points is done in two passes, as ``../shared/reference/bounds.md`` describes:
+points is done in two passes (common practice for validating floating-point screens):
 
 1. *Screen* with float64 (numpy): points whose margin is comfortably positive
    are accepted.

@@ -80,7 +80,7 @@ def read_records(path: str | os.PathLike) -> list[dict]:
 
 
 def summarise(records: list[dict]) -> dict:
-    """The audit summary (DESIGN.md, ``audit --json``) computed from the records of a run."""
+    """The audit summary (docs/DESIGN.md, ``audit --json``) computed from the records of a run."""
     start = next((r for r in records if r.get("type") == "start"), {})
     checks = [r for r in records if r.get("type") == "check"]
     failures = [r for r in checks if r["status"] in FAILURE_STATUSES]

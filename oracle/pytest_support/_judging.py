@@ -3,7 +3,7 @@
 The judging is the engine's own (:mod:`oracle.engine._audit`): the same
 normalisation, the same verdicts, the same first divergence (bisection for
 counting roles between the group's largest agreeing and smallest failing
-point), the same summary (DESIGN.md, ``audit --json``).  Valid points go
+point), the same summary (docs/DESIGN.md, ``audit --json``).  Valid points go
 through the public :func:`oracle.engine.run_audit` with ``only=points``.
 Inputs outside a role's domain are judged by the engine's run object
 (``_Run.ask_invalid``) -- a private helper, used read-only because the engine

@@ -1,6 +1,6 @@
 """The plugin's settings: command-line options and ini keys, resolved once per session.
 
-Precedence (DESIGN.md, "pytest plugin"): the command line beats the ini file
+Precedence (docs/DESIGN.md, "pytest plugin"): the command line beats the ini file
 (``[tool.pytest.ini_options]`` of ``pyproject.toml``, ``pytest.ini``, ...),
 which beats the default.  Targets are taken as a whole from one place: if the
 command line names any target (``--ntoracle-target`` or ``--ntoracle-exec``),

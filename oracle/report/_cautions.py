@@ -1,4 +1,4 @@
-"""The cautions every report shows (DESIGN.md, "Cautions the product shows")."""
+"""The cautions every report shows (docs/DESIGN.md, "Cautions the product shows")."""
 
 from __future__ import annotations
 

@@ -1,4 +1,4 @@
-"""The JSON report: the summary of each audit, with stable keys (DESIGN.md, ``audit --json``).
+"""The JSON report: the summary of each audit, with stable keys (docs/DESIGN.md, ``audit --json``).
 
 One audit is written as one JSON object; several as a JSON list of such
 objects, in the order given.  The keys of an audit, always in this order:

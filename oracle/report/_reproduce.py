@@ -1,6 +1,6 @@
 """The command that repeats one audit: the same target, role, profile, seed and settings.
 
-Every run is reproducible from its printed seed (DESIGN.md, "Profiles"); this
+Every run is reproducible from its printed seed (docs/DESIGN.md, "Profiles"); this
 writes the whole ``ntoracle audit`` command from a run's ``start`` record.
 """
 

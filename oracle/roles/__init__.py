@@ -6,7 +6,7 @@
 >>> roles.infer("my_prime_pi")
 'prime_pi'
 
-One module per role (DESIGN.md, "Candidate conventions"); :class:`Conventions`
+One module per role (docs/DESIGN.md, "Candidate conventions"); :class:`Conventions`
 holds what a target may declare differently (half-open ranges, factor shape,
 behaviour on invalid input).
 """

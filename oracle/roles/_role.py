@@ -1,6 +1,6 @@
 """What a role is: the conventions of one kind of candidate and how its answers are judged.
 
-A *role* is a function the harness knows how to check (DESIGN.md, "Candidate
+A *role* is a function the harness knows how to check (docs/DESIGN.md, "Candidate
 conventions"): ``prime_pi``, ``twin_pi``, ``nth_prime``, ``is_prime``,
 ``next_prime``, ``prev_prime``, ``primes_in`` and ``factor``.  Each role module
 builds one :class:`Role`; the role turns a raw answer into a canonical value

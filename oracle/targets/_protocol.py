@@ -1,6 +1,6 @@
 """The line protocols: how requests and answers travel as text lines.
 
-Executable candidates (DESIGN.md): one request per line on stdin -- one integer,
+Executable candidates (docs/DESIGN.md): one request per line on stdin -- one integer,
 or two separated by a space for primes_in -- and one answer per line on stdout:
 an integer; for is_prime ``1``/``0`` or ``true``/``false``; for primes_in the
 primes separated by spaces (an empty line for none); for factor the prime
