@@ -14,10 +14,7 @@ import time
 import warnings
 
 import numpy as np
-import primesieve
 import pytest
-import sympy
-from primecountpy import primecount
 
 from oracle._errors import InvalidInputError, OracleError, OutOfReachError
 from oracle.exact import combinatorial
@@ -33,6 +30,7 @@ from oracle.exact.combinatorial._quotients import floor_quotients
 from oracle.exact.combinatorial._riemann_r import inverse_riemann_r, riemann_r
 from oracle.exact.combinatorial._run_clock import RunClock
 from oracle.exact.combinatorial._small_range import SMALL_LIMIT
+from _references import primecount, primesieve, sympy
 
 # OEIS A006880: pi(10^n), n = 0..18 (values from memory; every one is recomputed
 # by primecountpy in test_decimal_table_matches_primecountpy and the slow tests).

@@ -13,16 +13,16 @@ import bisect
 import math
 import random
 
-import flint
 import numpy as np
 import pytest
-import sympy
 from hypothesis import given, settings
 from hypothesis import strategies as st
-from sympy.ntheory import primetest as sympy_primetest
 
 from oracle._errors import InvalidInputError, OracleError
 from oracle.exact import primality
+from _references import flint, reference, sympy
+
+sympy_primetest = reference("sympy.ntheory.primetest", "sympy")
 
 SIEVE_LIMIT = 10**5
 

@@ -17,17 +17,14 @@ import math
 import shutil
 from pathlib import Path
 
-import flint
 import gmpy2
 import mpmath
 import numpy as np
-import primecountpy as primecount
-import primesieve
 import pytest
-import sympy
 import yaml
 
 from oracle import tables
+from _references import flint, primecount, primesieve, sympy
 from oracle._errors import InvalidInputError, OracleError
 
 # --------------------------------------------------------------------------- reach of this machine
