@@ -36,6 +36,10 @@ class _Reference:
         return self._module
 
     def __getattr__(self, name: str):
+        if name.startswith("_") or name.startswith("pytest"):
+            # pytest probes module attributes while collecting (``__test__``, ``pytestmark``);
+            # only a test's own use of the library may import it
+            raise AttributeError(name)
         return getattr(self._load(), name)
 
 
