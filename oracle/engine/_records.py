@@ -36,7 +36,7 @@ import shutil
 from pathlib import Path
 
 __all__ = ["FAILURE_STATUSES", "RecordStream", "Records", "read_records", "summarise", "jsonable",
-           "new_run_path", "point_to_latest", "VERDICTS"]
+           "new_run_path", "point_to_latest", "VERDICTS", "SKIPS_KEEPING_COMPLETE"]
 
 #: The verdicts of a summary.
 VERDICTS = ("passed", "failed", "no verdict")
@@ -44,7 +44,7 @@ VERDICTS = ("passed", "failed", "no verdict")
 #: Reasons for skipped points that leave a run complete: the user's declared domain and the
 #: oracle's own reach (both reported), and the rest of the invalid inputs after a hang there
 #: (a finding already).
-_SKIPS_KEEPING_COMPLETE = ("above the declared domain (--max)", "out of the oracle's reach",
+SKIPS_KEEPING_COMPLETE = ("above the declared domain (--max)", "out of the oracle's reach",
                            "outside the domain, after a hang there")
 
 #: Statuses of a check that count as findings against the candidate.
@@ -175,7 +175,7 @@ def summarise(records: list[dict]) -> dict:
                             if isinstance(r.get("seconds", 0.0), (int, float)))
     passed_checks = sum(1 for r in checks if r["status"] == "pass")
     not_run = sum(count for reason, count in skipped.items()
-                  if reason not in _SKIPS_KEEPING_COMPLETE)
+                  if reason not in SKIPS_KEEPING_COMPLETE)
     if failures:
         verdict = "failed"
     elif end is None or interrupted is not None or not checks:
