@@ -477,7 +477,8 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
         stream.close()
     summary = summarise(stream.records)
     if options.corpus and only is None:
-        calls = [r for r in run.failures if r["family"] not in ("identity",)]
+        calls = [r for r in stream.records if r.get("type") == "check"   # all on record, even
+                 and r["status"] in FAILURE_STATUSES and r["family"] != "identity"]  # if cut short
         summary["corpus_added"] = record_failures(options.corpus, calls, target=target.description,
                                                   role=role.name, seed=seed, profile=chosen.name,
                                                   kind=kind)
