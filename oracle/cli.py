@@ -109,7 +109,8 @@ def _add_audit_parser(commands) -> None:
         "audit", help="audit a candidate implementation against the oracle",
         description="Check a candidate at sampled points (tables, boundaries, adversarial "
                     "families, seeded random points), contain its faults, and localise the "
-                    "first divergence.  Exit 0 all checks passed, 1 a check failed.",
+                    "first divergence.  Exit 0 all checks passed, 1 a check failed, 5 no verdict "
+                    "(no check completed), 130 interrupted (findings saved).",
         epilog=CAUTION)
     audit.add_argument("target", nargs="?", metavar="TARGET",
                        help="a Python callable, package.module:function")
