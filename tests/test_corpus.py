@@ -163,3 +163,12 @@ def test_latest_pointer_is_a_link_replaced_atomically_or_a_copy(tmp_path):
 
 def test_run_paths_are_distinct(tmp_path):
     assert engine.new_run_path(tmp_path) != engine.new_run_path(tmp_path)
+
+
+def test_recording_never_writes_a_corpus_too_large_to_read(tmp_path, monkeypatch):
+    monkeypatch.setattr(_corpus, "MAX_CORPUS_BYTES", 2000)
+    path = tmp_path / "c.yaml"
+    added = engine.record_failures(path, [failure(x) for x in range(100)], target="t",
+                                   role="prime_pi", seed=1, profile="quick")
+    assert 0 < added < 100 and path.stat().st_size <= 2000
+    assert len(engine.load_corpus(path)) == added

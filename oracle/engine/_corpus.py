@@ -33,7 +33,7 @@ DEFAULT_CORPUS = os.path.join(".ntoracle", "regressions.yaml")
 #: Largest corpus file read, in bytes.
 MAX_CORPUS_BYTES = 4 * 2**20
 #: Most entries in one corpus.
-MAX_ENTRIES = 20_000
+MAX_ENTRIES = 10_000
 #: Largest argument kept or read, in bits (the roles reach 2**128 at most).
 MAX_ARGUMENT_BITS = 1024
 
@@ -111,7 +111,9 @@ def _locked(path: Path):
 def record_failures(path: str | os.PathLike, failures: list[dict], *, target: str, role: str,
                     seed: int, profile: str, kind: str = "python") -> int:
     """Add the failures not yet in the corpus (same role, target and arguments); return how many
-    were added.  Locked, merged with what other runs wrote meanwhile, replaced atomically."""
+    were added.  Locked, merged with what other runs wrote meanwhile, replaced atomically; the
+    corpus never grows beyond :data:`MAX_ENTRIES` entries or :data:`MAX_CORPUS_BYTES` bytes
+    (the newest entries beyond are not kept)."""
     import yaml
 
     path = Path(path)
@@ -136,11 +138,16 @@ def record_failures(path: str | os.PathLike, failures: list[dict], *, target: st
                             "detail": str(failure.get("detail", ""))[:300], "seed": seed,
                             "profile": profile, "recorded": now})
             added += 1
+        text = yaml.safe_dump({"regressions": entries}, sort_keys=False)
+        while added and len(text.encode("utf-8")) > MAX_CORPUS_BYTES:   # never write what
+            dropped = max(1, added // 10)                                # cannot be read back
+            del entries[-dropped:]
+            added -= dropped
+            text = yaml.safe_dump({"regressions": entries}, sort_keys=False)
         if added:
             temporary = path.with_name(f".{path.name}.{os.getpid()}.{id(entries)}.tmp")
             try:
-                temporary.write_text(yaml.safe_dump({"regressions": entries}, sort_keys=False),
-                                     encoding="utf-8")
+                temporary.write_text(text, encoding="utf-8")
                 os.replace(temporary, path)
             finally:
                 if temporary.exists():
