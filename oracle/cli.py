@@ -1,8 +1,10 @@
 """The ``ntoracle`` command line.
 
-Exit codes (docs/DESIGN.md): 0 success; 1 a candidate failed a check; 2 usage,
+Exit codes (README, docs/DESIGN.md): 0 success; 1 a candidate failed a check; 2 usage,
 configuration or input error; 3 the oracle cannot answer exactly and says what
-it can prove instead.  Integers are parsed without ``eval``
+it can prove instead; 4 an internal error; 5 no verdict (an audit that
+completed no check, or a results file without an ``end`` record); 130 an
+interrupted audit (its summary so far is printed, its findings are saved).  Integers are parsed without ``eval``
 (:func:`oracle._integers.parse_integer`).
 """
 
@@ -17,7 +19,8 @@ import time
 from ._errors import InvalidInputError, OracleError, OutOfReachError
 from ._integers import parse_integer
 
-EXIT_OK, EXIT_FAILED, EXIT_USAGE, EXIT_OUT_OF_REACH = 0, 1, 2, 3
+EXIT_OK, EXIT_FAILED, EXIT_USAGE, EXIT_OUT_OF_REACH, EXIT_INTERNAL, EXIT_NO_VERDICT = 0, 1, 2, 3, 4, 5
+EXIT_INTERRUPTED = 130
 
 VALUE_FUNCTIONS = ("pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
                    "triplets_026", "triplets_046", "quadruplets")
@@ -106,7 +109,8 @@ def _add_audit_parser(commands) -> None:
         "audit", help="audit a candidate implementation against the oracle",
         description="Check a candidate at sampled points (tables, boundaries, adversarial "
                     "families, seeded random points), contain its faults, and localise the "
-                    "first divergence.  Exit 0 all checks passed, 1 a check failed.",
+                    "first divergence.  Exit 0 all checks passed, 1 a check failed, 5 no verdict "
+                    "(no check completed), 130 interrupted (findings saved).",
         epilog=CAUTION)
     audit.add_argument("target", nargs="?", metavar="TARGET",
                        help="a Python callable, package.module:function")
@@ -122,9 +126,13 @@ def _add_audit_parser(commands) -> None:
     audit.add_argument("--quiet", action="store_true",
                        help="for CI logs: no progress display, only the verdict and first divergence")
     audit.add_argument("--report", metavar="DIR", help="write summary.json and report.txt into DIR")
-    audit.add_argument("--stream", metavar="FILE", default=os.path.join(".ntoracle", "last-audit.jsonl"),
-                       help="JSON-lines file of results, written as they happen "
-                            "(default .ntoracle/last-audit.jsonl)")
+    audit.add_argument("--stream", metavar="FILE", default=None,
+                       help="JSON-lines file of results, written as they happen (default: a new "
+                            "file under .ntoracle/runs/, linked from .ntoracle/last-audit.jsonl)")
+    audit.add_argument("--stop-after", metavar="N", default=None,
+                       help="stop asking after N findings (default: the profile's enough_findings)")
+    audit.add_argument("--no-early-stop", action="store_true",
+                       help="ask every point however many checks fail")
     audit.add_argument("--corpus", metavar="FILE", default=os.path.join(".ntoracle", "regressions.yaml"),
                        help="regression corpus, replayed first and extended with new failures "
                             "(default .ntoracle/regressions.yaml)")
@@ -138,14 +146,19 @@ def _add_replay_parser(commands) -> None:
     replay = commands.add_parser(
         "replay", help="re-run recorded failures",
         description="Ask again every input of a regression corpus (YAML) or of the failures in a "
-                    "results file (JSON lines).  The target recorded with each failure is used "
-                    "unless TARGET or --exec is given.  Exit 0 when all pass now, 1 otherwise.",
+                    "results file (JSON lines).  The Python target recorded with each failure is "
+                    "used unless TARGET or --exec is given; a recorded executable is never run: "
+                    "its entries are replayed only against an --exec given now.  Exit 0 when "
+                    "all pass now, 1 otherwise, 5 when nothing could be replayed.",
         epilog=CAUTION)
     replay.add_argument("file", metavar="FILE", help=".ntoracle/regressions.yaml or a .jsonl results file")
     replay.add_argument("target", nargs="?", metavar="TARGET", help="package.module:function")
     replay.add_argument("--exec", dest="exec_command", metavar="CMD", help="an executable target")
     replay.add_argument("--json", dest="json_file", metavar="FILE", help="write the summaries as JSON")
     _add_target_options(replay)
+    for action in replay._actions:
+        if action.dest == "role":
+            action.help = "replay only the entries of this role"
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -174,7 +187,7 @@ def main(argv: list[str] | None = None) -> int:
             raise
         print(f"ntoracle: internal error: {type(error).__name__}: {error} "
               f"(set NTORACLE_DEBUG=1 for the traceback, and please report it)", file=sys.stderr)
-        return 4
+        return EXIT_INTERNAL
 
 
 _PROGRESS_STEPS = 1000
@@ -300,10 +313,12 @@ def _audit(arguments) -> int:
     from . import engine, sampling
 
     if arguments.summary_from:
+        if not os.path.isfile(arguments.summary_from):
+            raise InvalidInputError(f"{arguments.summary_from}: no such file")
         summary = engine.rebuild_summary(arguments.summary_from)
         _print_summary(summary)
         _write_json(arguments.json_file, summary)
-        return EXIT_OK if summary["passed"] else EXIT_FAILED
+        return _exit_code(summary)
     if (arguments.target is None) == (arguments.exec_command is None):
         raise InvalidInputError("give either TARGET (package.module:function) or --exec CMD")
     role = _role_of(arguments.target, arguments.exec_command, arguments.role)
@@ -311,6 +326,14 @@ def _audit(arguments) -> int:
     if seed < 0:
         raise InvalidInputError(f"--seed {seed}: must be >= 0")
     maximum = parse_integer(arguments.maximum) if arguments.maximum is not None else None
+    minimum = _role_minimum(role)
+    if maximum is not None and minimum is not None and maximum < minimum:
+        raise InvalidInputError(f"--max {maximum}: below the smallest input of {role} ({minimum})")
+    stop_after = parse_integer(arguments.stop_after) if arguments.stop_after is not None else None
+    if stop_after is not None and stop_after < 1:
+        raise InvalidInputError(f"--stop-after {stop_after}: must be >= 1")
+    if stop_after is not None and arguments.no_early_stop:
+        raise InvalidInputError("give --stop-after N or --no-early-stop, not both")
     profile = sampling.profile(arguments.profile)
     timeout = arguments.timeout if arguments.timeout is not None else profile.timeout
     arguments.timeout = timeout
@@ -321,41 +344,77 @@ def _audit(arguments) -> int:
     options = engine.AuditOptions(role=role, profile=profile.name, seed=seed, timeout=timeout,
                                   maximum=maximum, conventions=_conventions(arguments),
                                   corpus=None if arguments.no_corpus else arguments.corpus,
-                                  stream=arguments.stream)
+                                  stream=arguments.stream or engine.new_run_path(".ntoracle"),
+                                  stop_after=stop_after, early_stop=not arguments.no_early_stop)
     from . import report
 
+    interrupted = False
     try:
         with report.Progress(description=f"{role} checks", quiet=arguments.quiet) as progress:
             options.on_record = progress.observe
             summary = engine.run_audit(target, options, kind=kind)
+    except engine.AuditInterrupted as stop:
+        summary, interrupted = stop.summary, True
     finally:
         target.close()
+        if arguments.stream is None and os.path.exists(options.stream):
+            engine.point_to_latest(options.stream, os.path.join(".ntoracle", "last-audit.jsonl"))
     _print_summary(summary, listed=0 if arguments.quiet else 20)
-    if arguments.stream:
-        print(f"results: {arguments.stream}")
+    print(f"results: {options.stream}")
     _write_json(arguments.json_file, summary)
     if arguments.report:
-        _write_report(arguments.report, summary, arguments.stream, " ".join(sys.argv[1:]))
-    if not summary["passed"]:
+        _write_report(arguments.report, summary, options.stream, " ".join(sys.argv[1:]))
+    if interrupted:
+        print("ntoracle: interrupted; the findings so far are saved", file=sys.stderr)
+        return EXIT_INTERRUPTED
+    return _exit_code(summary)
+
+
+def _role_minimum(name: str) -> int | None:
+    from . import roles
+
+    try:
+        return roles.get(name).minimum
+    except OracleError:
+        return None
+
+
+def _exit_code(summary: dict) -> int:
+    """0 passed, 1 failed, 3 nothing within the oracle's reach, 5 no verdict."""
+    if summary["verdict"] == "failed":
         return EXIT_FAILED
-    if summary["checks"] == 0 and summary["skipped"].get("out of the oracle's reach"):
+    if summary["verdict"] == "passed":
+        return EXIT_OK
+    if summary["ended"] and summary["checks"] == 0 and summary["skipped"].get("out of the oracle's reach"):
         print("ntoracle: no point was within the oracle's reach", file=sys.stderr)
         return EXIT_OUT_OF_REACH
-    return EXIT_OK
+    print("ntoracle: no verdict: " + ("no check was completed" if summary["ended"]
+                                      else "the run has no end record (interrupted or torn)"),
+          file=sys.stderr)
+    return EXIT_NO_VERDICT
 
 
 def _replay(arguments) -> int:
     from . import engine
 
+    if arguments.target and arguments.exec_command:
+        raise InvalidInputError("give TARGET or --exec CMD, not both")
     groups = _replay_groups(arguments.file)
+    if arguments.role:
+        groups = {key: points for key, points in groups.items() if key[2] == arguments.role}
     if not groups:
-        print(f"{arguments.file}: no recorded failures to replay")
+        print(f"{arguments.file}: no recorded failures to replay"
+              + (f" of role {arguments.role}" if arguments.role else ""))
         return EXIT_OK
-    summaries = []
+    summaries, refused = [], 0
     for (spec, kind, role), points in groups.items():
         if arguments.target or arguments.exec_command:
             spec, kind = arguments.exec_command or arguments.target, "exec" if arguments.exec_command else "python"
-        role = arguments.role or role
+        elif kind == "exec" or not spec:
+            refused += 1
+            print(f"replay: skipped {len(points)} recorded input(s) of {role} for the executable "
+                  f"{spec!r}: a command written in a file is never run (give --exec CMD)")
+            continue
         target, kind = _make_target(spec if kind == "python" else None,
                                     spec if kind == "exec" else None, role, arguments)
         options = engine.AuditOptions(role=role, profile="ci", seed=0,
@@ -372,7 +431,11 @@ def _replay(arguments) -> int:
         for failure in summary["failures"][:20]:
             print("  " + _describe(failure))
     _write_json(arguments.json_file, summaries)
-    return EXIT_OK if all(s["passed"] for s in summaries) else EXIT_FAILED
+    if not summaries:
+        return EXIT_NO_VERDICT
+    if any(s["verdict"] == "failed" for s in summaries):
+        return EXIT_FAILED
+    return EXIT_OK if all(s["passed"] for s in summaries) else EXIT_NO_VERDICT
 
 
 def _replay_groups(path: str) -> dict:
@@ -386,11 +449,14 @@ def _replay_groups(path: str) -> dict:
         start = next((r for r in records if r.get("type") == "start"), None)
         if start is None:
             raise InvalidInputError(f"{path}: not a results file of ntoracle audit (no start record)")
-        kind = "exec" if start.get("isolated") and " " in start["target"] or ":" not in start["target"] else "python"
+        target = start.get("target") if isinstance(start.get("target"), str) else None
+        kind = start.get("kind")
+        if kind not in ("python", "exec"):      # an older file: a Python target names module:function
+            kind = "python" if target and ":" in target and " " not in target else "exec"
         for record in records:
             if record.get("type") == "check" and record["status"] in engine.FAILURE_STATUSES \
                     and record["family"] not in ("identity",):
-                key = (start["target"], kind, start["role"])
+                key = (target, kind, start.get("role"))
                 groups.setdefault(key, [])
                 if record["arguments"] not in groups[key]:
                     groups[key].append(record["arguments"])
@@ -416,9 +482,22 @@ def _describe(failure: dict) -> str:
 def _print_summary(summary: dict, listed: int = 20) -> None:
     """The verdict, the first ``listed`` findings, the first divergence, skips and timings."""
     failures = summary["failures"]
-    verdict = "PASSED" if summary["passed"] else "FAILED"
+    from .engine import SKIPS_KEEPING_COMPLETE
+
+    verdict = {"passed": "PASSED", "failed": "FAILED"}.get(summary["verdict"], "NO VERDICT")
+    reservations = []
+    if summary.get("interrupted"):
+        reservations.append(f"run interrupted ({summary['interrupted']})")
+    elif not summary["ended"]:
+        reservations.append("the results have no end record")
+    if summary["not_run"]:
+        reasons = "; ".join(reason for reason in summary["skipped"]
+                            if reason not in SKIPS_KEEPING_COMPLETE)
+        reservations.append(f"{summary['not_run']} point(s) not run: {reasons}")
+    if summary.get("garbled_lines"):
+        reservations.append(f"{summary['garbled_lines']} garbled line(s) skipped")
     print(f"{verdict}: {summary['passed_checks']} of {summary['checks']} checks passed, "
-          f"{len(failures)} finding(s)" + ("" if summary["complete"] else " (run interrupted)"))
+          f"{len(failures)} finding(s)" + "".join(f" -- {r}" for r in reservations))
     for failure in failures[:listed]:
         print("  " + _describe(failure))
     if len(failures) > listed:

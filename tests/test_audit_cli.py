@@ -92,3 +92,61 @@ def test_report_directory_holds_the_html_report(capsys, in_tmp):
     page = (in_tmp / "rep" / "report.html").read_text()
     assert "data:image/png;base64," in page and "nth_prime" in page
     assert json.loads((in_tmp / "rep" / "summary.json").read_text())["passed"] is False
+
+
+def test_max_below_the_role_minimum_is_a_usage_error(capsys, in_tmp):
+    code, _, err = run(capsys, "audit", "_candidates:prime_pi", "--max", "-1", "--no-corpus")
+    assert code == 2 and "below the smallest input of prime_pi" in err
+
+
+def test_summary_of_a_stream_without_end_is_no_verdict(capsys, in_tmp):
+    code, _, _ = run(capsys, "audit", "_candidates:prime_pi", "--profile", "quick", "--seed", "1",
+                     "--max", "500", "--no-corpus", "--stream", "r.jsonl")
+    assert code == 0
+    lines = (in_tmp / "r.jsonl").read_text().splitlines()
+    (in_tmp / "cut.jsonl").write_text("\n".join(lines[:-1]) + "\n")
+    code, out, err = run(capsys, "audit", "--summary-from", "cut.jsonl", "--json", "s.json")
+    assert code == cli.EXIT_NO_VERDICT == 5
+    assert out.startswith("NO VERDICT") and "no end record" in err
+    summary = json.loads((in_tmp / "s.json").read_text())
+    assert summary["verdict"] == "no verdict" and not summary["passed"] and not summary["complete"]
+
+
+def test_early_stop_shown_in_the_verdict_and_switchable(capsys, in_tmp):
+    code, out, _ = run(capsys, "audit", "_candidates:prime_pi_float", "--role", "prime_pi",
+                       "--profile", "quick", "--seed", "1", "--max", "3000", "--no-corpus",
+                       "--stop-after", "2", "--json", "s.json")
+    assert code == 1 and "point(s) not run: the candidate had already failed 2 checks" in out
+    assert json.loads((in_tmp / "s.json").read_text())["complete"] is False
+    code, _, err = run(capsys, "audit", "_candidates:prime_pi", "--stop-after", "2", "--no-early-stop")
+    assert code == 2 and "not both" in err
+
+
+def test_each_run_has_its_own_stream_and_the_pointer_follows(capsys, in_tmp):
+    for seed in ("1", "2"):
+        code, _, _ = run(capsys, "audit", "_candidates:prime_pi", "--profile", "quick",
+                         "--seed", seed, "--max", "500", "--no-corpus")
+        assert code == 0
+    runs = sorted((in_tmp / ".ntoracle" / "runs").iterdir())
+    assert len(runs) == 2
+    pointer = in_tmp / ".ntoracle" / "last-audit.jsonl"
+    assert pointer.resolve() == runs[-1].resolve()
+    assert json.loads(pointer.read_text().splitlines()[0])["seed"] == 2
+
+
+def test_replay_never_runs_a_recorded_command(capsys, in_tmp):
+    script = in_tmp / "pi.py"
+    script.write_text("import sys, sympy\nfor line in sys.stdin:\n"
+                      "    print(sympy.primepi(int(line)), flush=True)\n")
+    (in_tmp / "c.yaml").write_text(
+        "regressions:\n"
+        "- {role: prime_pi, arguments: [10], target: touch pwned, kind: exec}\n"
+        "- {role: nth_prime, arguments: [1], target: '_candidates:nth_prime_zero_based'}\n")
+    code, out, _ = run(capsys, "replay", "c.yaml", "--role", "prime_pi")
+    assert code == cli.EXIT_NO_VERDICT and "never run" in out
+    assert not (in_tmp / "pwned").exists()
+    code, out, _ = run(capsys, "replay", "c.yaml", "--role", "prime_pi",
+                       "--exec", f"{sys.executable} {script}")
+    assert code == 0 and "1 recorded input(s), 0 still failing" in out   # pi(10) = 4 (sympy)
+    code, out, _ = run(capsys, "replay", "c.yaml", "--role", "nth_prime")
+    assert code == 1 and "never run" not in out and "as nth_prime" in out

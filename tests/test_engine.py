@@ -4,7 +4,7 @@ import json
 
 import pytest
 
-from oracle import engine, sampling, targets
+from oracle import InvalidInputError, engine, sampling, targets
 from oracle.engine import AuditOptions
 from oracle.engine._audit import BATCH
 
@@ -158,3 +158,40 @@ def test_every_record_reaches_the_on_record_callback(tmp_path):
         progress.observe(record)
     assert progress.completed == sum(1 for r in seen if r["type"] == "check")
     assert progress.total == max(seen[1]["points"], progress.completed)
+
+
+def test_no_completed_check_is_no_verdict(tmp_path):
+    summary = audit("_candidates:prime_pi", "prime_pi", tmp_path, time_budget=0.0)
+    assert summary["checks"] == 0 and summary["verdict"] == "no verdict"
+    assert not summary["passed"] and not summary["complete"]
+    assert summary["skipped"]["time budget spent"] == summary["not_run"] > 300
+
+
+def test_maximum_below_the_role_minimum_is_refused(tmp_path):
+    with pytest.raises(InvalidInputError, match="below the smallest input of nth_prime"):
+        audit("_candidates:nth_prime", "nth_prime", tmp_path, maximum=0)
+
+
+def test_early_stop_is_switchable_and_makes_the_run_incomplete(tmp_path):
+    stopped = audit("_candidates:prime_pi_float", "prime_pi", tmp_path, maximum=3000, stop_after=3)
+    assert 3 <= len(stopped["failures"]) < 3 + BATCH
+    assert not stopped["complete"] and stopped["skipped"]["the candidate had already failed 3 checks"]
+    every = audit("_candidates:prime_pi_float", "prime_pi", tmp_path, maximum=3000, early_stop=False)
+    assert not any(reason.startswith("the candidate had already failed") for reason in every["skipped"])
+    assert len(every["failures"]) > 300 and every["complete"]
+
+
+def test_findings_of_an_interrupted_run_are_saved(tmp_path):
+    def interrupt_at_the_first_finding(record):
+        if record.get("status") == "wrong":
+            raise KeyboardInterrupt
+
+    with pytest.raises(engine.AuditInterrupted) as stopped:
+        audit("_candidates:prime_pi_from_1000", "prime_pi", tmp_path,
+              on_record=interrupt_at_the_first_finding)
+    summary = stopped.value.summary
+    assert summary["verdict"] == "failed" and not summary["complete"]
+    assert summary["interrupted"] == "KeyboardInterrupt" and summary["corpus_added"] == 1
+    assert [e["arguments"] for e in engine.load_corpus(tmp_path / "regressions.yaml")] == [[1000]]
+    last = engine.read_records(tmp_path / "r.jsonl")[-1]
+    assert last["type"] == "interrupted"        # pi(1000) = 168 (OEIS A006880) was the finding

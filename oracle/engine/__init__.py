@@ -9,12 +9,12 @@ True
 Passing these checks is evidence, not a certificate of correctness.
 """
 
-from ._audit import AuditOptions, run_audit
+from ._audit import AuditInterrupted, AuditOptions, run_audit
 from ._corpus import DEFAULT_CORPUS, load_corpus, record_failures
-from ._records import FAILURE_STATUSES, read_records, summarise
+from ._records import FAILURE_STATUSES, SKIPS_KEEPING_COMPLETE, new_run_path, point_to_latest, read_records, summarise
 
-__all__ = ["AuditOptions", "run_audit", "DEFAULT_CORPUS", "load_corpus", "record_failures",
-           "FAILURE_STATUSES", "read_records", "summarise", "rebuild_summary"]
+__all__ = ["AuditOptions", "AuditInterrupted", "run_audit", "new_run_path", "point_to_latest", "DEFAULT_CORPUS", "load_corpus", "record_failures",
+           "FAILURE_STATUSES", "SKIPS_KEEPING_COMPLETE", "read_records", "summarise", "rebuild_summary"]
 
 
 def rebuild_summary(path) -> dict:

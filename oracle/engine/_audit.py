@@ -2,7 +2,11 @@
 
 The order of work:
 
-1. the regression corpus of this role, then the sampled points
+1. the regression corpus (read once) -- entries of this role and target as
+   ``regression``, of this role and another target as ``regression (other
+   target)``, entries outside the role's domain (wrong arity, below
+   ``role.minimum``) judged by the invalid-input policy like the role's own
+   invalid inputs, entries of other roles ignored -- then the sampled points
    (:func:`oracle.sampling.sample`) from the smallest up -- small inputs are
    cheap, so most defects show within the first second -- in batches, then the
    inputs outside the domain (where a hang costs a whole timeout);
@@ -18,14 +22,25 @@ The order of work:
    between, bisection still ends at an adjacent agree/disagree pair, but not
    necessarily the smallest); for primes_in the smallest missing or extra
    prime; for the others the smallest failing input;
-6. failures go to the regression corpus.
+6. failures go to the regression corpus -- also when the run is interrupted
+   (any exception, Ctrl-C included): the stream then gets an ``interrupted``
+   record and :class:`AuditInterrupted` (a ``KeyboardInterrupt``) carries the
+   summary so far; another exception is re-raised after the same saving.
 
 Points above the declared domain (``maximum``), points left when the time
 budget is spent, points at least as large as two that timed out, and -- once
 the candidate has clearly failed (the profile's ``enough_findings``) -- the
 points not yet asked are skipped and counted as skipped, never as passed.
-After enough findings only the localisation (step 5) is still done; the time
-budget covers every phase, the localisation included.
+After enough findings only the localisation (step 5) is still done.  The early
+stop is switchable: ``AuditOptions.stop_after`` replaces the profile's number
+and ``early_stop=False`` asks every point (CLI ``--stop-after N``,
+``--no-early-stop``).
+
+The corpus replay has its own allowance, equal to the time budget; the budget
+clock of the sampled points starts after it, so a large corpus never eats the
+sampled points' time.  The time budget then covers every later phase, the
+localisation included.  A run with points skipped for time, the early stop,
+crashes or timeouts is reported incomplete (:func:`oracle.engine.summarise`).
 """
 
 from __future__ import annotations
@@ -37,13 +52,13 @@ from typing import Callable
 
 from .. import roles as roles_module
 from .. import sampling
-from .._errors import OracleError, OutOfReachError
+from .._errors import InvalidInputError, OracleError, OutOfReachError
 from ..roles import Conventions, Role, WrongType
 from ..targets import CRASHED, OK, RAISED, TIMEOUT
 from ._corpus import load_corpus, record_failures
 from ._records import FAILURE_STATUSES, RecordStream, jsonable, summarise
 
-__all__ = ["AuditOptions", "run_audit"]
+__all__ = ["AuditOptions", "AuditInterrupted", "run_audit"]
 
 BATCH = 64
 #: Seconds per point (call and verdict) above which points are asked one at a time.
@@ -101,6 +116,16 @@ class AuditOptions:
     oracle_budget: float = 10.0
     time_budget: float | None = None
     on_record: Callable[[dict], None] | None = None    # called with every record written
+    stop_after: int | None = None       # findings before the early stop (None: the profile's)
+    early_stop: bool = True             # False: ask every point however many checks fail
+
+
+class AuditInterrupted(KeyboardInterrupt):
+    """The audit was interrupted; ``summary`` is the summary of what was done (findings saved)."""
+
+    def __init__(self, summary: dict):
+        super().__init__("audit interrupted")
+        self.summary = summary
 
 
 class _Run:
@@ -111,6 +136,7 @@ class _Run:
         self.profile = sampling.profile(options.profile)
         self.stream = stream
         self.started = time.perf_counter()
+        self.budget_started = self.started     # restarted after the corpus replay
         self.answers: dict[tuple, object] = {}
         self.families: dict[tuple, str] = {}
         self.verdicts: dict[tuple, object] = {}
@@ -121,7 +147,8 @@ class _Run:
         self.skipped: dict[str, list[int]] = {}
         self.time_budget = (options.time_budget if options.time_budget is not None
                             else self.profile.time_budget)
-        self.enough_findings = self.profile.enough_findings
+        self.enough_findings = (None if not options.early_stop else options.stop_after
+                                if options.stop_after is not None else self.profile.enough_findings)
         #: What the role remembers during this run (exact values found so far), or None.
         self.memory = self.role.memory() if self.role.memory is not None else None
 
@@ -195,7 +222,7 @@ class _Run:
     # -- the phases -------------------------------------------------------- #
 
     def over_budget(self) -> bool:
-        return self.elapsed() > self.time_budget
+        return time.perf_counter() - self.budget_started > self.time_budget
 
     def failed_enough(self) -> bool:
         return self.enough_findings is not None and len(self.failures) >= self.enough_findings
@@ -358,45 +385,79 @@ class _Run:
                                "smallest": min(sizes), "elapsed": self.elapsed()})
 
 
+def _corpus_points(entries: list[dict], role: Role, target: str) -> tuple[list, list]:
+    """The corpus entries of ``role`` as (valid, outside the domain) lists of (family, arguments),
+    each input once; entries of other roles are left out."""
+    valid, invalid, seen = [], [], set()
+    for entry in entries:
+        arguments = tuple(entry["arguments"])
+        if entry["role"] != role.name or arguments in seen:
+            continue
+        seen.add(arguments)
+        family = "regression" if entry.get("target") == target else "regression (other target)"
+        if len(arguments) != role.arity or min(arguments) < role.minimum:
+            invalid.append(("invalid-input", arguments))
+        else:
+            valid.append((family, arguments))
+    return valid, invalid
+
+
+def _check_options(options: AuditOptions, role: Role) -> None:
+    if options.maximum is not None and options.maximum < role.minimum:
+        raise InvalidInputError(f"maximum={options.maximum}: below the smallest input of "
+                                f"{role.name} ({role.minimum})")
+    if options.stop_after is not None and (type(options.stop_after) is not int
+                                           or options.stop_after < 1):
+        raise InvalidInputError(f"stop_after={options.stop_after!r}: must be a positive integer")
+
+
 def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
               kind: str = "python") -> dict:
     """Audit ``target`` (from :mod:`oracle.targets`) and return the summary.
 
     Results stream to ``options.stream`` (JSON lines) as they are found; failures
-    are appended to ``options.corpus`` when it is given (``kind`` -- ``python`` or
+    are added to ``options.corpus`` when it is given (``kind`` -- ``python`` or
     ``exec`` -- is recorded with them, so that ``ntoracle replay`` can rebuild the
-    target).  With ``only``, just those argument tuples are asked (a replay): no
-    sampling, no re-asking.
+    target), also when the run is interrupted (then :class:`AuditInterrupted` is
+    raised for Ctrl-C, the exception itself otherwise).  With ``only``, just those
+    argument tuples are asked (a replay): no sampling, no re-asking; those outside
+    the role's domain are judged by the invalid-input policy.
     """
     seed = options.seed if options.seed is not None else sampling.new_seed()
     chosen = sampling.profile(options.profile)
     role = roles_module.get(options.role)
+    _check_options(options, role)
     if options.timeout is None:
         options.timeout = chosen.timeout
+    entries = load_corpus(options.corpus) if options.corpus and only is None else []
     stream = RecordStream(options.stream, on_record=options.on_record)
     run = _Run(target, options, stream)
+    stopped: BaseException | None = None
     try:
-        stream.write({"type": "start", "target": target.description, "role": role.name,
+        stream.write({"type": "start", "target": target.description, "kind": kind, "role": role.name,
                       "profile": chosen.name, "seed": seed, "timeout": options.timeout,
                       "maximum": options.maximum, "isolated": target.isolated,
                       "conventions": vars(options.conventions), "elapsed": 0.0})
-        corpus_points = []
-        if options.corpus:
-            corpus_points = [("regression", tuple(entry["arguments"]))
-                             for entry in load_corpus(options.corpus)
-                             if entry["role"] == role.name and len(entry["arguments"]) == role.arity]
         if only is not None:
             run.enough_findings = None          # a replay asks every point it was given
-            run.ask([("regression", tuple(arguments)) for arguments in only])
+            valid, invalid = _corpus_points([{"role": role.name, "arguments": list(a),
+                                              "target": target.description} for a in only],
+                                            role, target.description)
+            run.ask(valid)
+            run.ask_invalid(invalid)
         else:
-            run.ask(corpus_points)
+            corpus_points, corpus_invalid = _corpus_points(entries, role, target.description)
             samples = sorted(sampling.sample(role, chosen, seed),
                              key=lambda s: role.magnitude(s.arguments))
             replayed = {arguments for _, arguments in corpus_points}
-            stream.write({"type": "plan", "points": len(corpus_points) + len(samples)
-                          + len(role.invalid_inputs), "elapsed": run.elapsed()})
+            stream.write({"type": "plan", "points": len(corpus_points) + len(corpus_invalid)
+                          + len(samples) + len(role.invalid_inputs), "elapsed": run.elapsed()})
+            run.ask(corpus_points)
+            run.ask_invalid(corpus_invalid)
+            run.budget_started = time.perf_counter()        # the corpus had its own allowance
             run.ask([(s.family, s.arguments) for s in samples if s.arguments not in replayed])
-            run.ask_invalid([("invalid-input", arguments) for arguments in role.invalid_inputs])
+            own_invalid = [a for a in role.invalid_inputs if a not in {p for _, p in corpus_invalid}]
+            run.ask_invalid([("invalid-input", arguments) for arguments in own_invalid])
             run.reask(seed)
             run.relations()
         found = run.divergence()
@@ -404,13 +465,25 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
             stream.write({"type": "divergence", **jsonable(found)})
         run.write_skipped()
         stream.write({"type": "end", "elapsed": run.elapsed()})
+    except BaseException as error:      # Ctrl-C included: save what was found, then say so
+        stopped = error
+        try:
+            run.write_skipped()
+            stream.write({"type": "interrupted", "reason": type(error).__name__,
+                          "detail": str(error)[:200], "elapsed": run.elapsed()})
+        except Exception:
+            pass
     finally:
         stream.close()
     summary = summarise(stream.records)
     if options.corpus and only is None:
-        calls = [r for r in run.failures if len(r["arguments"]) == role.arity
-                 and r["family"] not in ("identity",)]
+        calls = [r for r in stream.records if r.get("type") == "check"   # all on record, even
+                 and r["status"] in FAILURE_STATUSES and r["family"] != "identity"]  # if cut short
         summary["corpus_added"] = record_failures(options.corpus, calls, target=target.description,
                                                   role=role.name, seed=seed, profile=chosen.name,
                                                   kind=kind)
+    if isinstance(stopped, KeyboardInterrupt):
+        raise AuditInterrupted(summary) from stopped
+    if stopped is not None:
+        raise stopped
     return summary

@@ -1,22 +1,51 @@
 """Results as JSON-lines records, written as they happen, and the summary rebuilt from them.
 
-One record a line: ``start`` (target, role, profile, seed, settings), ``plan``
-(how many points are about to be asked), ``check``
-(one call judged: status, check, family, arguments, got, expected, provenance,
-detail, seconds), ``skipped`` (how many points were not run, and why),
-``divergence`` (the localised first failure) and ``end``.  Each line is flushed
-when written, so an interrupted audit leaves every finished result on disk;
-:func:`summarise` builds the same summary from the records of a finished run
-and from those of an interrupted one (a torn last line is ignored).
+One record a line: ``start`` (target, kind, role, profile, seed, settings),
+``plan`` (how many points are about to be asked), ``check`` (one call judged:
+status, check, family, arguments, got, expected, provenance, detail, seconds),
+``skipped`` (how many points were not run, and why), ``divergence`` (the
+localised first failure), ``interrupted`` (the run was stopped by an exception:
+what it was) and ``end``.  Each line is flushed when written, so an interrupted
+audit leaves every finished result on disk.
+
+Each audit writes its own file (:func:`new_run_path`: ``.ntoracle/runs/<UTC
+time>-<pid>.jsonl``), so two audits in one folder never interleave; the
+pointer ``.ntoracle/last-audit.jsonl`` is a symbolic link to the newest run,
+replaced atomically (``os.replace`` of a fresh link) when the run ends; where
+links are not allowed it is a copy written when the run ends
+(:func:`point_to_latest`).
+
+:func:`read_records` skips a torn or garbled line anywhere in the file and
+counts it (``garbled_lines`` of the summary); it never stops early.
+:func:`summarise` builds the summary of a finished or interrupted run.  Its
+``verdict`` is ``failed`` when any check failed, ``no verdict`` when the
+stream has no ``end`` record or no check was completed, else ``passed``;
+``passed`` is true only for the verdict ``passed``.  ``complete`` is false
+whenever points were not run for the time budget, the early stop, crashes,
+timeouts, an interruption or a missing ``end`` (skips above the declared
+domain and out of the oracle's reach are reported, but do not make a run
+incomplete); ``not_run`` counts the points that made it so.
 """
 
 from __future__ import annotations
 
+import datetime
 import json
 import os
+import shutil
 from pathlib import Path
 
-__all__ = ["FAILURE_STATUSES", "RecordStream", "read_records", "summarise", "jsonable"]
+__all__ = ["FAILURE_STATUSES", "RecordStream", "Records", "read_records", "summarise", "jsonable",
+           "new_run_path", "point_to_latest", "VERDICTS", "SKIPS_KEEPING_COMPLETE"]
+
+#: The verdicts of a summary.
+VERDICTS = ("passed", "failed", "no verdict")
+
+#: Reasons for skipped points that leave a run complete: the user's declared domain and the
+#: oracle's own reach (both reported), and the rest of the invalid inputs after a hang there
+#: (a finding already).
+SKIPS_KEEPING_COMPLETE = ("above the declared domain (--max)", "out of the oracle's reach",
+                           "outside the domain, after a hang there")
 
 #: Statuses of a check that count as findings against the candidate.
 FAILURE_STATUSES = ("wrong", "wrong-type", "raised", "too-slow", "crashed", "nondeterministic")
@@ -67,20 +96,70 @@ class RecordStream:
             self._file = None
 
 
-def read_records(path: str | os.PathLike) -> list[dict]:
-    """The records of a JSON-lines file; an incomplete last line (an interrupted write) is dropped."""
-    records = []
-    with open(path, encoding="utf-8") as handle:
+class Records(list):
+    """The records of a results file; ``garbled`` counts the lines that were not a record."""
+
+    garbled = 0
+
+
+def read_records(path: str | os.PathLike) -> Records:
+    """The records of a JSON-lines file; a torn or garbled line anywhere is skipped and counted
+    (in ``.garbled``), the lines after it are still read."""
+    records = Records()
+    with open(path, "rb") as handle:
         for line in handle:
+            if not line.strip():
+                continue
             try:
-                records.append(json.loads(line))
-            except json.JSONDecodeError:
-                break
+                record = json.loads(line.decode("utf-8"))
+            except (UnicodeDecodeError, json.JSONDecodeError):
+                record = None
+            if isinstance(record, dict) and isinstance(record.get("type"), str) \
+                    and _well_formed(record):
+                records.append(record)
+            else:
+                records.garbled += 1
     return records
 
 
+def _well_formed(record: dict) -> bool:
+    """Whether a record has the fields :func:`summarise` relies on."""
+    if record["type"] == "check":
+        return isinstance(record.get("status"), str) and isinstance(record.get("arguments"), list)
+    if record["type"] == "skipped":
+        return isinstance(record.get("reason"), str) and type(record.get("count")) is int
+    return True
+
+
+def new_run_path(folder: str | os.PathLike = ".ntoracle") -> str:
+    """A fresh results file for one run: ``folder/runs/<UTC time>-<pid>.jsonl``."""
+    now = datetime.datetime.now(datetime.timezone.utc).strftime("%Y%m%dT%H%M%S.%fZ")
+    return os.path.join(os.fspath(folder), "runs", f"{now}-{os.getpid()}.jsonl")
+
+
+def point_to_latest(run_path: str | os.PathLike, pointer: str | os.PathLike, *,
+                    copy: bool = False) -> None:
+    """Make ``pointer`` the newest run: a symbolic link to ``run_path`` replaced atomically, or,
+    with ``copy`` (or where links are refused), an atomic copy of the file as it is now."""
+    pointer = Path(pointer)
+    pointer.parent.mkdir(parents=True, exist_ok=True)
+    temporary = pointer.with_name(f".{pointer.name}.{os.getpid()}.tmp")
+    if not copy:
+        try:
+            target = os.path.relpath(os.path.abspath(run_path), os.path.abspath(pointer.parent))
+            if temporary.is_symlink() or temporary.exists():
+                temporary.unlink()
+            os.symlink(target, temporary)
+            os.replace(temporary, pointer)
+            return
+        except OSError:
+            pass
+    shutil.copyfile(run_path, temporary)
+    os.replace(temporary, pointer)
+
+
 def summarise(records: list[dict]) -> dict:
-    """The audit summary (docs/DESIGN.md, ``audit --json``) computed from the records of a run."""
+    """The audit summary (README, ``audit --json``) computed from the records of a run."""
     start = next((r for r in records if r.get("type") == "start"), {})
     checks = [r for r in records if r.get("type") == "check"]
     failures = [r for r in checks if r["status"] in FAILURE_STATUSES]
@@ -90,14 +169,25 @@ def summarise(records: list[dict]) -> dict:
             skipped[record["reason"]] = skipped.get(record["reason"], 0) + record["count"]
     divergence = next((r for r in records if r.get("type") == "divergence"), None)
     end = next((r for r in records if r.get("type") == "end"), None)
-    first_failure = min((r["elapsed"] for r in failures), default=None)
-    candidate_seconds = sum(r.get("seconds", 0.0) for r in checks)
+    interrupted = next((r for r in records if r.get("type") == "interrupted"), None)
+    first_failure = min((r["elapsed"] for r in failures if "elapsed" in r), default=None)
+    candidate_seconds = sum(r.get("seconds", 0.0) for r in checks
+                            if isinstance(r.get("seconds", 0.0), (int, float)))
+    passed_checks = sum(1 for r in checks if r["status"] == "pass")
+    not_run = sum(count for reason, count in skipped.items()
+                  if reason not in SKIPS_KEEPING_COMPLETE)
+    if failures:
+        verdict = "failed"
+    elif end is None or interrupted is not None or not checks:
+        verdict = "no verdict"
+    else:
+        verdict = "passed"
     return {
         "target": start.get("target"), "role": start.get("role"), "profile": start.get("profile"),
-        "seed": start.get("seed"), "passed": not failures,
-        "complete": end is not None,
+        "seed": start.get("seed"), "passed": verdict == "passed",
+        "complete": end is not None and interrupted is None and not_run == 0,
         "checks": len(checks),
-        "passed_checks": sum(1 for r in checks if r["status"] == "pass"),
+        "passed_checks": passed_checks,
         "failures": [{key: r.get(key) for key in ("status", "check", "family", "arguments", "got",
                                                   "expected", "provenance", "detail")}
                      for r in failures],
@@ -105,7 +195,13 @@ def summarise(records: list[dict]) -> dict:
             key: value for key, value in divergence.items() if key != "type"},
         "skipped": skipped,
         "timings": {"total_seconds": end["elapsed"] if end else
-                    max((r.get("elapsed", 0.0) for r in records), default=0.0),
+                    max((r.get("elapsed", 0.0) for r in records
+                         if isinstance(r.get("elapsed", 0.0), (int, float))), default=0.0),
                     "candidate_seconds": round(candidate_seconds, 6),
                     "first_finding_seconds": first_failure},
+        "verdict": verdict,
+        "not_run": not_run,
+        "ended": end is not None,
+        "interrupted": None if interrupted is None else interrupted.get("reason"),
+        "garbled_lines": getattr(records, "garbled", 0),
     }

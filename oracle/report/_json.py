@@ -13,9 +13,11 @@ objects, in the order given.  The keys of an audit, always in this order:
 ``seed``
     the seed of the sampled points; the same seed repeats the same run.
 ``passed``
-    ``true`` when no check found a defect.
+    ``true`` only when the verdict is ``passed``: no check found a defect, at least one
+    check was completed and the run reached its end.
 ``complete``
-    ``false`` when the run was interrupted before its end (its results are then partial).
+    ``false`` when points were not run for the time budget, the early stop, crashes or
+    timeouts, or the run was interrupted or has no end record (results then partial).
 ``checks``
     the number of checks made.
 ``passed_checks``
@@ -47,6 +49,17 @@ objects, in the order given.  The keys of an audit, always in this order:
     ``total_seconds`` (the whole run), ``candidate_seconds`` (time spent inside the
     candidate) and ``first_finding_seconds`` (when the first defect was found, or
     ``null``).
+``verdict``
+    ``passed``, ``failed`` (a check found a defect) or ``no verdict`` (no check
+    completed, or no end record: interrupted or torn); the CLI exits 0, 1 or 5.
+``not_run``
+    how many points were not run for reasons that make the run incomplete.
+``ended``
+    whether the results have their ``end`` record.
+``interrupted``
+    ``null``, or the name of what interrupted the run (``KeyboardInterrupt``, ...).
+``garbled_lines``
+    torn or garbled lines of the results file that were skipped.
 ``corpus_added``
     present only when a regression corpus was used: how many failures were added to it.
 
@@ -71,7 +84,7 @@ SUMMARY_KEYS = ("target", "role", "profile", "seed", "passed", "complete", "chec
                 "passed_checks", "failures", "first_divergence", "skipped", "timings")
 
 #: Keys written after those when a summary has them.
-OPTIONAL_KEYS = ("corpus_added",)
+OPTIONAL_KEYS = ("verdict", "not_run", "ended", "interrupted", "garbled_lines", "corpus_added")
 
 
 def ordered_summary(summary: dict) -> dict:

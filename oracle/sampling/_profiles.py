@@ -49,7 +49,10 @@ class Profile:
     ``heavy_budget``: the total :func:`heavy_cost` they may have, per role.
     ``enough_findings``: after this many findings the role has clearly failed;
     the remaining points are skipped (and reported so) and only the work of
-    localising the first divergence is done (``None``: ask every point).
+    localising the first divergence is done (``None``: ask every point).  The
+    early stop makes a run incomplete; ``ntoracle audit --stop-after N`` changes
+    the number and ``--no-early-stop`` switches it off (``AuditOptions.stop_after``,
+    ``early_stop``).
     """
 
     name: str
