@@ -76,3 +76,71 @@ def test_require_int_refuses_absurd_sizes():
 def test_our_errors_are_value_errors():
     assert issubclass(InvalidInputError, OracleError)
     assert issubclass(OracleError, ValueError)
+
+
+# -- bounded parsing: hostile expressions are refused at once --------------- #
+
+from oracle._integers import MAX_BITS, MAX_NESTING, MAX_TEXT, MAX_TOKENS  # noqa: E402
+
+
+@pytest.mark.parametrize("text, problem", [
+    ("((0.5**16000)**16000)**16000", "denominator"),        # the denominator grows, not the numerator
+    ("0.5**16001", "exponent"),
+    ("*".join(["1e-4000"] * 60), "denominator"),             # a chain of tiny factors
+    ("+".join(f"1e-{k}" for k in range(3990, 4000)), "not an integer"),
+    ("1**10**100", "exponent"),
+    ("2**16001", "exponent|absurd size"),
+    ("1e99999999999999999999", "e-notation"),
+    ("(" * (MAX_NESTING + 1) + "1" + ")" * (MAX_NESTING + 1), "nested"),
+    ("-" * (MAX_NESTING + 1) + "1", "nested"),
+    ("+".join(["1"] * MAX_TOKENS), "numbers and operators"),
+    ("1" * (MAX_TEXT + 1), "characters"),
+])
+def test_parse_integer_refuses_hostile_expressions_naming_the_limit(text, problem):
+    with pytest.raises(InvalidInputError, match=problem):
+        parse_integer(text)
+
+
+@pytest.mark.parametrize("text, character", [
+    ("\u0661\u0662\u0663", "U+0661"),     # Arabic-Indic digits: int() reads them as 123
+    ("\uff11\uff12\uff13", "U+FF11"),     # full-width digits
+    ("2\u00b2", "U+00B2"),                # a superscript two
+    ("1\u09e6", "U+09E6"),                # Bengali digit zero
+    ("10\u00a0000", "U+00A0"),            # a no-break space is not ASCII either
+])
+def test_parse_integer_accepts_ascii_digits_only(text, character):
+    with pytest.raises(InvalidInputError, match="ASCII") as raised:
+        parse_integer(text)
+    assert character in str(raised.value)
+
+
+def test_python_itself_would_read_those_digits():
+    assert int("\u0661\u0662\u0663") == 123 and int("\uff11\uff12\uff13") == 123
+
+
+@pytest.mark.parametrize("text, expected", [
+    ("10**14", 10**14), ("2**64-1", 2**64 - 1), ("1e12", 10**12), ("12.5e1", 125),
+    ("(1e-4000 + 1e-3999) * 1e4000", 11),
+    ("1e-3 * 1e3", 1), ("0.5**3 * 8", 1), ("-(-(-(7)))", -7),
+    ("9" * MAX_DIGITS, int("9" * MAX_DIGITS)),
+    ("+".join(["1"] * (MAX_TOKENS // 2)), MAX_TOKENS // 2),
+])
+def test_parse_integer_still_reads_large_valid_forms_exactly(text, expected):
+    assert parse_integer(text) == expected
+
+
+def test_intermediates_may_exceed_the_final_limit_but_not_max_bits():
+    # require_int caps the result near 13320 bits; an intermediate may reach MAX_BITS (16000)
+    assert parse_integer("2**15999 - 2**15999 + 2**13000") == 2**13000
+    with pytest.raises(InvalidInputError, match="absurd size"):
+        parse_integer("2**15999")
+
+
+def test_every_intermediate_limit_is_at_least_the_size_of_an_accepted_value():
+    assert MAX_BITS >= MAX_DIGITS * 3.33                    # require_int's own limit
+
+
+def test_error_messages_stay_short_for_long_input():
+    with pytest.raises(InvalidInputError) as raised:
+        parse_integer("*".join(["1e-4000"] * 60))
+    assert len(str(raised.value)) < 300
