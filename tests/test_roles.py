@@ -170,3 +170,39 @@ def test_primes_in_far_up_is_listed_by_testing_each_number():
     assert sympy.prevprime(2**64) == 2**64 - 59
     short = judge("primes_in", (a, b), list(sympy.primerange(a, b + 1))[:-1])
     assert not short.passed and "first missing prime: 18446744073709551557" in short.detail
+
+
+# Non-canonical factorisations of 360 = 2^3 * 3^2 * 5 (checked by the product below).
+NON_CANONICAL_360 = {
+    "the prime 2 listed twice": [(2, 1), (3, 2), (2, 2), (5, 1)],
+    "factors not in ascending order": [(5, 1), (3, 2), (2, 3)],
+    "an exponent 0": [(2, 3), (3, 2), (5, 1), (7, 0)],
+    "a factor 1": [1, 2, 2, 2, 3, 3, 5],
+}
+
+
+@pytest.mark.parametrize("irregularity", sorted(NON_CANONICAL_360))
+def test_non_canonical_factorisation_warns_under_any_shape(irregularity):
+    raw = NON_CANONICAL_360[irregularity]
+    assert sympy.factorint(360) == {2: 3, 3: 2, 5: 1}
+    verdict = judge("factor", (360,), raw)
+    assert verdict.passed
+    assert "warning: non-canonical" in verdict.detail and irregularity in verdict.detail
+
+
+@pytest.mark.parametrize("irregularity", sorted(NON_CANONICAL_360))
+def test_non_canonical_factorisation_fails_under_its_strict_shape(irregularity):
+    raw = NON_CANONICAL_360[irregularity]
+    shape = "flat" if isinstance(raw[0], int) else "pairs"
+    with pytest.raises(WrongType, match="non-canonical"):
+        roles.get("factor").normalise(raw, Conventions(factor_shape=shape))
+
+
+def test_mapping_with_zero_exponent_and_canonical_answers_carry_no_warning():
+    with pytest.raises(WrongType, match="exponent 0"):
+        roles.get("factor").normalise({2: 3, 3: 2, 5: 1, 7: 0}, Conventions(factor_shape="mapping"))
+    assert judge("factor", (360,), {5: 1, 2: 3, 3: 2}).detail == ""    # a mapping has no order
+    assert judge("factor", (360,), [(2, 3), (3, 2), (5, 1)]).detail == ""
+    assert judge("factor", (1,), [1]).passed                          # factor(1) = [1]: warned
+    with pytest.raises(WrongType):
+        roles.get("factor").normalise([(2, -1)], CONVENTIONS)

@@ -85,3 +85,111 @@ def test_primes_in_samples_long_listings_across_segment_seams():
 def test_unknown_profile_refused():
     with pytest.raises(InvalidInputError, match="profile"):
         sampling.profile("fast")
+
+
+# --- families of classic failure modes (checked by sympy, a test-only reference) ---------- #
+
+import random
+
+import sympy
+
+from oracle.sampling import _families
+
+#: OEIS A051439, prime(2^k + 1) for k = 0..28 (data section, read with the search tool).
+A051439 = (3, 5, 11, 23, 59, 137, 313, 727, 1621, 3673, 8167, 17881, 38891, 84047, 180511,
+           386117, 821647, 1742539, 3681149, 7754081, 16290073, 34136059, 71378603, 148948141,
+           310248251, 645155227, 1339484207, 2777105131, 5750079077)
+CI = sampling.profile("ci")
+
+
+def _family(name, ceiling=2**64, chosen=CI, seed=1):
+    return _families.family(name, "x")(ceiling, chosen, random.Random(seed))
+
+
+def test_prime_at_power_of_two_agrees_with_oeis_a051439_and_sympy():
+    for k, p in _families.PRIME_AT_POWER_OF_TWO.items():
+        if k <= 27:
+            assert sympy.nextprime(p) == A051439[k], k            # p_N and p_(N+1) are consecutive
+        if k <= 17:
+            assert sympy.prime(2**k) == p
+    points = _family("answer-words", ceiling=2**20)
+    assert {sympy.primepi(x) for x in points if x in (820640, 821640, 821641)} <= {2**16 - 1, 2**16}
+    assert 821640 in points and 821641 in points and sympy.primepi(821640) == 2**16 - 1
+
+
+def test_twin_answer_words_step_the_twin_count_across_two_to_the_k():
+    points = set(_family("twin-answer-words", ceiling=2**16))
+    twins = [p + 2 for p in sympy.primerange(3, 2**16) if sympy.isprime(p + 2)]
+    for k in range(1, 10):
+        q = twins[2**k - 1]
+        assert {q - 1, q, q + 1} <= points
+
+
+def test_prime_powers_are_prime_powers_and_neighbours():
+    points = _family("prime-powers", ceiling=2**40)
+    powers = [x for x in points if sympy.perfect_power(x) and len(sympy.factorint(x)) == 1]
+    assert len(powers) >= 50 and 3**25 in points and 2**40 in points
+    assert all(any(abs(x - y) <= 2 for y in powers) for x in points)
+    assert any(sympy.factorint(x) and max(sympy.factorint(x).values()) == 3
+               and min(sympy.factorint(x)) > 2**10 for x in powers)    # p³ with p above 2^10
+
+
+def test_pseudoprime_neighbours_hold_each_pseudoprime_and_its_neighbouring_primes():
+    points = set(_family("pseudoprime-neighbours", ceiling=2**32))
+    for n in (2047, 561, 3215031751, 5459):                 # A001262, A002997, A014233, A005845
+        assert {n - 1, n, n + 1, sympy.prevprime(n), sympy.nextprime(n)} <= points
+
+
+def test_bound_starts_surround_every_catalogue_range_start():
+    from oracle import bounds
+
+    points = set(_family("bound-starts", ceiling=2**40))
+    for bound in bounds.catalogue():
+        start = bound.range.start
+        if start is not None and 16 <= start <= 2**40:
+            s = int(start)
+            assert {s - 1, s} <= points and any(s // 16 <= x < s // 2 for x in points)
+
+
+def test_sieve_seams_are_primes_at_segment_multiples_and_sieving_prime_starts():
+    points = set(_family("sieve-seams"))
+    for k in (15, 20, 24):
+        assert {sympy.prevprime(2**k), sympy.nextprime(2**k)} <= points
+    intervals = _family("sieving-prime-intervals", ceiling=2**33)
+    starts = [(a, b) for a, b in intervals if sympy.isprime(a)]
+    assert len(starts) >= 40 and all(a * a <= b or a + 1 in (3,) for a, b in starts)
+    assert {(1021, 2**20), (1020, 2**20), (65521, 65521**2)} <= set(intervals)
+
+
+def test_mersenne_and_fermat_numbers():
+    points = set(_family("mersenne-fermat", ceiling=2**130))
+    assert {2**61 - 1, 2**127 - 1, 2**32 + 1, 2**64 + 1, 2**128 + 2} <= points
+    assert sympy.factorint(2**32 + 1) == {641: 1, 6700417: 1}
+
+
+def test_factor_shapes_cover_every_factor_size_with_repeated_and_close_factors():
+    points = _family("factor-shapes", ceiling=2**100)
+    sizes = set()
+    shapes = set()
+    for n in points[::7]:
+        f = sympy.factorint(n)
+        sizes.add(max(f).bit_length())
+        if max(f.values()) >= 2 and len(f) >= 3:
+            shapes.add("repeated among three or more")
+        if len(f) == 1:
+            shapes.add("prime power")
+    assert shapes == {"repeated among three or more", "prime power"}
+    assert len(sizes) > 15
+
+
+@pytest.mark.parametrize("name", ["quick", "ci"])
+def test_new_families_respect_ceilings_and_heavy_caps(name):
+    chosen = sampling.profile(name)
+    for role in roles.ROLES.values():
+        points = sampling.sample(role, chosen, seed=3)
+        assert all(max(s.arguments) <= chosen.ceilings[role.name] for s in points)
+        if role.name in sampling.HEAVY:
+            heavy = [s for s in points if max(s.arguments) > sampling.HEAVY[role.name]]
+            assert len(heavy) <= chosen.heavy_points
+            budget = chosen.heavy_budget[role.name]
+            assert sum(sampling.heavy_cost(role.name, max(s.arguments)) for s in heavy) <= budget

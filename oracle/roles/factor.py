@@ -3,6 +3,14 @@
 The product of the claimed factors must be n and every factor must be prime
 (:func:`oracle.facade.verify_factorization`: deterministic below the published
 bound, Baillie–PSW ``probable`` above -- a probable prime is not a proven prime).
+
+The canonical form (fundamental theorem of arithmetic) lists each prime once, in
+ascending order, with an exponent ≥ 1.  Non-canonical answers -- a prime listed
+twice in (p, e) pairs, pairs or a flat list out of order, entries with e = 0, a
+factor 1 -- describe the same number, and code downstream that assumes the
+canonical form breaks on them (common practice).  Under a strict declared shape
+(``pairs``, ``flat``, ``mapping``) they are a failure; under ``any`` the answer
+is judged on its merged form and the verdict's detail carries a warning.
 """
 
 from __future__ import annotations
@@ -13,14 +21,46 @@ from .. import facade
 from ._role import Conventions, Role, Verdict, WrongType, as_integer
 
 
-def _normalise(raw: object, conventions: Conventions) -> tuple[tuple[int, int], ...]:
+class Factorisation(tuple):
+    """The merged, sorted (p, e) pairs of an answer; ``irregularities`` says how the
+    raw answer departed from the canonical form (empty when it did not)."""
+
+    irregularities: tuple[str, ...]
+
+    def __new__(cls, pairs, irregularities=()):
+        made = super().__new__(cls, pairs)
+        made.irregularities = tuple(irregularities)
+        return made
+
+
+def _normalise(raw: object, conventions: Conventions) -> Factorisation:
     shape, pairs = _shape_and_pairs(raw)
     if conventions.factor_shape != "any" and shape != conventions.factor_shape and pairs:
         raise WrongType(f"a {shape} factorisation where the target declares {conventions.factor_shape}")
+    irregularities = non_canonical(shape, pairs)
+    if irregularities and conventions.factor_shape != "any":
+        raise WrongType(f"a non-canonical {shape} factorisation: {'; '.join(irregularities)}")
     merged: Counter = Counter()
     for prime, exponent in pairs:
-        merged[prime] += exponent
-    return tuple(sorted(merged.items()))
+        if prime != 1 and exponent != 0:
+            merged[prime] += exponent
+    return Factorisation(sorted(merged.items()), irregularities)
+
+
+def non_canonical(shape: str, pairs: list[tuple[int, int]]) -> tuple[str, ...]:
+    """How (p, e) pairs of the given shape depart from the canonical factorisation."""
+    found = []
+    primes = [p for p, _ in pairs]
+    if 1 in primes:
+        found.append("a factor 1")
+    if any(e == 0 for _, e in pairs):
+        found.append("an exponent 0")
+    if shape == "pairs" and len(set(primes)) < len(primes):
+        repeated = next(p for i, p in enumerate(primes) if p in primes[:i])
+        found.append(f"the prime {repeated} listed twice")
+    if shape != "mapping" and primes != sorted(primes):
+        found.append("factors not in ascending order")
+    return tuple(found)
 
 
 def _shape_and_pairs(raw: object) -> tuple[str, list[tuple[int, int]]]:
@@ -39,8 +79,8 @@ def _shape_and_pairs(raw: object) -> tuple[str, list[tuple[int, int]]]:
 
 def _exponent(raw: object) -> int:
     exponent = as_integer(raw)
-    if exponent < 1:
-        raise WrongType(f"exponent {exponent} (exponents must be >= 1)")
+    if exponent < 0:
+        raise WrongType(f"exponent {exponent} (exponents must be >= 0)")
     return exponent
 
 
@@ -48,7 +88,11 @@ def _judge(arguments: tuple, got: tuple, conventions: Conventions, budget: float
     (n,) = arguments
     report = facade.verify_factorization(n, dict(got))
     expected = "a product of primes equal to n"
-    return Verdict("factorization", report.ok, expected, report.provenance, "; ".join(report.problems))
+    details = list(report.problems)
+    irregularities = getattr(got, "irregularities", ())
+    if irregularities:
+        details.append("warning: non-canonical factorisation (" + "; ".join(irregularities) + ")")
+    return Verdict("factorization", report.ok, expected, report.provenance, "; ".join(details))
 
 
 ROLE = Role(
@@ -56,5 +100,6 @@ ROLE = Role(
     signature="factor(n) -> {p: e} | [p, p, q] | [(p, e)]: n >= 1, factor(1) empty",
     normalise=_normalise, judge=_judge, invalid_inputs=((0,), (-6,)),
     families=("exhaustive", "tables", "primes", "squares", "carmichael", "pseudoprimes",
-              "semiprimes", "smooth", "certified", "boundaries", "uniform", "log-uniform"),
+              "semiprimes", "smooth", "certified", "boundaries", "uniform", "log-uniform",
+              "prime-powers", "mersenne-fermat", "factor-shapes"),
 )

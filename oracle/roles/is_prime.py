@@ -29,5 +29,6 @@ ROLE = Role(
     signature="is_prime(n) -> bool: n >= 0; 0 and 1 are not prime",
     normalise=_normalise, judge=_judge, invalid_inputs=((-1,),),
     families=("exhaustive", "primes", "squares", "pseudoprimes", "carmichael", "semiprimes",
-              "certified", "boundaries", "uniform", "log-uniform"),
+              "certified", "boundaries", "uniform", "log-uniform",
+              "prime-powers", "mersenne-fermat"),
 )

@@ -10,5 +10,6 @@ ROLE = Role(
     signature="next_prime(n) -> int: the smallest prime > n",
     normalise=normalise_prime, judge=judge_neighbour("next_prime"), invalid_inputs=((-1,),),
     families=("exhaustive", "primes", "gaps", "boundaries", "twins", "pseudoprimes",
-              "uniform", "log-uniform"),
+              "uniform", "log-uniform",
+              "prime-powers", "pseudoprime-neighbours", "mersenne-fermat", "bound-starts"),
 )

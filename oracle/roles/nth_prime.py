@@ -138,5 +138,6 @@ ROLE = Role(
     signature="nth_prime(n) -> int: the n-th prime, n >= 1, nth_prime(1) = 2",
     normalise=_normalise, judge=_judge, relations=_relations,
     invalid_inputs=((0,), (-1,)), memory=_memory,
-    families=("exhaustive", "tables", "prime-indices", "boundaries", "uniform", "log-uniform"),
+    families=("exhaustive", "tables", "prime-indices", "boundaries", "uniform", "log-uniform",
+              "bound-starts"),
 )

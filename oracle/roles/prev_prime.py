@@ -11,5 +11,6 @@ ROLE = Role(
     normalise=normalise_prime, judge=judge_neighbour("prev_prime"),
     invalid_inputs=((2,), (1,), (0,)),
     families=("exhaustive", "primes", "gaps", "boundaries", "twins", "pseudoprimes",
-              "uniform", "log-uniform"),
+              "uniform", "log-uniform",
+              "prime-powers", "pseudoprime-neighbours", "mersenne-fermat"),
 )

@@ -11,5 +11,6 @@ ROLE = Role(
     normalise=normalise_count, judge=judge_count("pi"), relations=count_relations("pi"),
     memory=count_memory("pi"),
     families=("exhaustive", "tables", "boundaries", "primes", "squares", "segments",
-              "gaps", "uniform", "log-uniform"),
+              "gaps", "uniform", "log-uniform",
+              "answer-words", "prime-powers", "bound-starts", "sieve-seams"),
 )

@@ -54,7 +54,9 @@ ROLE = Role(
     name="primes_in", arity=2, minimum=0, counting=False,
     signature="primes_in(a, b) -> iterable of int: all primes a <= p <= b, ascending",
     normalise=_normalise, judge=_judge, invalid_inputs=((-5, 10),),
-    families=("exhaustive", "boundaries", "segments", "twins", "gaps", "uniform", "log-uniform"),
+    families=("exhaustive", "boundaries", "segments", "twins", "gaps", "uniform", "log-uniform",
+              "pseudoprimes", "bound-starts", "sieve-seams",
+              "sieving-prime-intervals"),
 )
 
 

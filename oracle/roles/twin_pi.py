@@ -11,5 +11,6 @@ ROLE = Role(
     normalise=normalise_count, judge=judge_count("twin_pi"), relations=count_relations("twin_pi"),
     memory=count_memory("twin_pi"),
     families=("exhaustive", "tables", "boundaries", "twins", "segments", "uniform",
-              "log-uniform"),
+              "log-uniform",
+              "twin-answer-words", "prime-powers", "sieve-seams"),
 )

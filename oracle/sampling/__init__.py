@@ -94,7 +94,10 @@ def _thin_heavy(found: list[Sample], role_name: str, keep: int, budget: int | No
 
 
 def _intervals(name: str, values: list[int], ceiling: int, chosen: Profile, rng) -> list[tuple[int, int]]:
-    """Intervals [a, b] for primes_in built from one family's integers."""
+    """Intervals [a, b] for primes_in built from one family's integers (a family that
+    gives (a, b) pairs itself keeps them)."""
+    if values and isinstance(values[0], tuple):
+        return [(a, b) for a, b in values if b <= ceiling]
     if name == "exhaustive":
         limit = min(_PAIRS_LIMIT, chosen.exhaustive)
         pairs = [(a, b) for b in range(limit + 1) for a in range(b + 1)]

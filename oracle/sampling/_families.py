@@ -7,10 +7,18 @@ their neighbours, prime squares ± 1 where a float square root goes wrong
 (near 2¹⁶·², 2²⁶·⁵·², 2³²·²), multiples of segment sizes 2¹⁵…2²⁰ ± small,
 twin pairs straddling powers of two, and both ends of record prime gaps
 (OEIS A002386 / A005250, from :mod:`oracle.tables`).
+
+Further families, each with its rationale beside it: answers that cross a word
+size (``answer-words``), prime powers and their neighbours (``prime-powers``),
+neighbourhoods of published pseudoprimes (``pseudoprime-neighbours``), starts
+of the bound catalogue's ranges (``bound-starts``), sieve seams at primes
+(``sieve-seams``), Mersenne and Fermat numbers (``mersenne-fermat``) and
+factorisation shapes by factor size (``factor-shapes``).
 """
 
 from __future__ import annotations
 
+import functools
 import math
 import random
 
@@ -146,6 +154,181 @@ def prime_indices(ceiling, profile, rng) -> list[int]:
     return _below(found, ceiling)
 
 
+#: p_N for N = 2^k, k = 1..32 (the oracle's nth_prime: sieve up to k = 27, the
+#: Deleglise-Rivat count above; tests compare next_prime(p_N) with OEIS A051439,
+#: prime(2^k + 1)).  p_N for N = 2^53 and 2^63 is beyond the oracle's reach.
+PRIME_AT_POWER_OF_TWO = {
+    1: 3, 2: 7, 3: 19, 4: 53, 5: 131, 6: 311, 7: 719, 8: 1619, 9: 3671, 10: 8161, 11: 17863,
+    12: 38873, 13: 84017, 14: 180503, 15: 386093, 16: 821641, 17: 1742537, 18: 3681131,
+    19: 7754077, 20: 16290047, 21: 34136029, 22: 71378569, 23: 148948139, 24: 310248241,
+    25: 645155197, 26: 1339484197, 27: 2777105129, 31: 50685770167, 32: 104484802057,
+}
+#: Word sizes an answer (a count) can overflow (common practice: int16/uint16, int32/uint32,
+#: the 53-bit double mantissa, int64).
+ANSWER_WORDS = (15, 16, 31, 32, 53, 63)
+
+
+def answer_words(ceiling, profile, rng) -> list[int]:
+    """x = p_N − 1 and x = p_N for N = 2^k: π(x) steps from 2^k − 1 to 2^k, where a count
+    kept in a k-bit word wraps (for every k the oracle reaches, not only the word sizes)."""
+    found = set()
+    for p in PRIME_AT_POWER_OF_TWO.values():
+        found.update((p - 1, p, p + 1))
+    return _below(found, ceiling)
+
+
+#: Twin counts: x = q − 1, q, where q is the larger member of the 2^k-th twin pair, up to here.
+_TWIN_WORD_LIMIT = 2**24
+
+
+@functools.lru_cache(maxsize=1)
+def _twin_word_points() -> tuple[int, ...]:
+    from .. import facade
+
+    listed = facade.primes(0, _TWIN_WORD_LIMIT)
+    uppers = [q for p, q in zip(listed, listed[1:]) if q - p == 2]
+    found = []
+    for k in range(1, 40):
+        if 2**k <= len(uppers):
+            q = uppers[2**k - 1]
+            found.extend((q - 1, q, q + 1))
+    return tuple(found)
+
+
+def twin_answer_words(ceiling, profile, rng) -> list[int]:
+    """x where π₂(x) steps from 2^k − 1 to 2^k (k ≤ 16 lies below 2^24; beyond, not reached)."""
+    return _below(_twin_word_points(), ceiling)
+
+
+def prime_powers(ceiling, profile, rng) -> list[int]:
+    """p^e and p^e ± 1, ± 2 for e = 2..5, p the primes nearest 2^(j/e) for every boundary
+    exponent j of the profile, and every power of 2, 3, 5, 7 (common practice: x = p³ breaks a float cube
+    root in Meissel-type counters, p^e breaks perfect-power tests and trial division that
+    stops after one division by p)."""
+    found = set()
+    for e in range(2, 6):
+        for j in profile.boundary_exponents:
+            root = _integer_root(2**j, e)
+            if root >= 2 and root**e <= ceiling + 2:
+                for p in adversarial.primes_around(root, 1):
+                    found.update(p**e + d for d in OFFSETS)
+    for p in (2, 3, 5, 7):
+        power = p * p
+        while power <= ceiling + 2:
+            found.update(power + d for d in OFFSETS)
+            power *= p
+    return _below(found, ceiling)
+
+
+def _integer_root(n: int, e: int) -> int:
+    """⌊n^(1/e)⌋, exactly (a float guess, then corrected)."""
+    root = int(round(n ** (1 / e)))
+    while root**e > n:
+        root -= 1
+    while (root + 1)**e <= n:
+        root += 1
+    return root
+
+
+def pseudoprime_neighbours(ceiling, profile, rng) -> list[int]:
+    """n − 1, n, n + 1, prev_prime(n), next_prime(n) for every published and constructed
+    pseudoprime n of :func:`pseudoprimes` and :func:`carmichael` (common practice: a
+    next_prime built on a weak test skips to n or stops at it)."""
+    from ..exact.primality import next_prime, prev_prime
+
+    found = set()
+    for n in set(pseudoprimes(ceiling, profile, rng)) | set(carmichael(ceiling, profile, rng)):
+        found.update((n - 1, n, n + 1, prev_prime(n), next_prime(n)))
+    return _below(found, ceiling)
+
+
+def bound_starts(ceiling, profile, rng) -> list[int]:
+    """Just below and at the start s of each bound's range, and [s/16, s] densely (8
+    geometric points and 4 random ones): a candidate sizing its sieve from a bound
+    outside its range gets too small a sieve there (common practice)."""
+    from .. import bounds
+
+    found = set()
+    starts = {math.floor(b.range.start) for b in bounds.catalogue() if b.range.start is not None}
+    for s in sorted(start for start in starts if start >= 16):
+        found.update(s + d for d in (-2, -1, 0, 1))
+        found.update(int(s / 16 * 16 ** (i / 8)) for i in range(8))
+        found.update(rng.randint(s // 16, s) for _ in range(4))
+    return _below(found, ceiling)
+
+
+#: Segment sizes of segmented sieves (common practice: L1/L2 cache sizes, 2^15 ... 2^24).
+SEAM_EXPONENTS = tuple(range(15, 25))
+
+
+def sieve_seams(ceiling, profile, rng) -> list[int]:
+    """The primes nearest m·2^k (m = 1, 2, 3; k in :data:`SEAM_EXPONENTS`) with their
+    neighbours: a segment ending or starting at a prime drops or repeats it."""
+    found = set()
+    for k in SEAM_EXPONENTS:
+        for m in (1, 2, 3):
+            for p in adversarial.primes_around(m * 2**k, 1):
+                found.update((p - 1, p, p + 1))
+    return _below(found, ceiling)
+
+
+def sieving_prime_intervals(ceiling, profile, rng) -> list[tuple[int, int]]:
+    """Intervals [q, b] and [q − 1, b] whose start q is a sieving prime, q ≤ √b: a sieve
+    that crosses off q itself as a multiple of q loses it (common practice)."""
+    found = set()
+    for q in (2, 3, 5, 7, 11, 13, 31, 97, 251, 1021, 65521):
+        for b in (q * q, q * q + 1, 10 * q * q, 2**20, 2**24 + 7):
+            if q * q <= b <= ceiling:
+                found.update(((q, b), (q - 1, b)))
+    return sorted(found)
+
+
+def mersenne_fermat(ceiling, profile, rng) -> list[int]:
+    """2^k − 1 for k = 2..130 and Fermat numbers 2^(2^j) + 1, j = 0..7, each ± 1, ± 2
+    (common practice: all-ones words, the carries of 2^k + 1; 2^31 − 1, 2^61 − 1, 2^127 − 1 are
+    Mersenne primes, 2^32 + 1 = 641 · 6700417 is the first composite Fermat number)."""
+    found = set()
+    for k in range(2, 131):
+        found.update(2**k - 1 + d for d in OFFSETS)
+    for j in range(8):
+        found.update(2**2**j + 1 + d for d in OFFSETS)
+    return _below(found, ceiling)
+
+
+#: Factor sizes of :func:`factor_shapes`, in bits.
+FACTOR_BITS = tuple(range(8, 41))
+
+
+def factor_shapes(ceiling, profile, rng) -> list[int]:
+    """For every factor size b of 8..40 bits, two of each: balanced p·q (both b bits),
+    unbalanced p·Q (p of b bits, Q as large as the ceiling allows), p² and p³ (b bits);
+    and numbers of three or more factors: p²·q·r and a smooth part times q·r with q, r
+    consecutive primes (common practice: a factoriser drops a repeated prime, or its
+    Pollard rho meets gcd = n on equal or close factors and loops)."""
+    from ..exact.primality import next_prime
+
+    top = ceiling.bit_length() - 1
+    found = set()
+    for bits in FACTOR_BITS:
+        for _ in range(2):
+            p = _random_prime(bits, rng)
+            found.update((p * _random_prime(bits, rng), p**2, p**3))
+            if top - bits >= 8:
+                found.add(p * _random_prime(top - bits, rng))
+            q = _random_prime(max(bits // 2, 4), rng)
+            r = next_prime(q)
+            found.add(p**2 * q * r)
+            found.add(2**5 * 3**3 * 5 * 7**2 * q * r)
+            found.add(p * q * q * r)
+    return _below(found, ceiling)
+
+
+def _random_prime(bits: int, rng) -> int:
+    from ..exact.primality import next_prime
+
+    return next_prime(rng.randrange(2**(bits - 1), 2**bits - 2**(bits - 2)))
+
+
 def uniform(ceiling, profile, rng) -> list[int]:
     return [rng.randrange(0, ceiling + 1) for _ in range(profile.random_points)]
 
@@ -161,7 +344,11 @@ FAMILIES = {
     "segments": segments, "gaps": gaps, "twins": twins, "pseudoprimes": pseudoprimes,
     "carmichael": carmichael, "semiprimes": semiprimes, "smooth": smooth,
     "certified": certified, "prime-indices": prime_indices, "uniform": uniform,
-    "log-uniform": log_uniform,
+    "log-uniform": log_uniform, "answer-words": answer_words,
+    "twin-answer-words": twin_answer_words, "prime-powers": prime_powers,
+    "pseudoprime-neighbours": pseudoprime_neighbours, "bound-starts": bound_starts,
+    "sieve-seams": sieve_seams, "sieving-prime-intervals": sieving_prime_intervals,
+    "mersenne-fermat": mersenne_fermat, "factor-shapes": factor_shapes,
 }
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",
