@@ -276,9 +276,10 @@ def sieving_prime_intervals(ceiling, profile, rng) -> list[tuple[int, int]]:
     """Intervals [q, b] and [q − 1, b] whose start q is a sieving prime, q ≤ √b: a sieve
     that crosses off q itself as a multiple of q loses it (common practice)."""
     found = set()
-    for q in (2, 3, 5, 7, 11, 13, 31, 97, 251, 1021, 65521):
-        for b in (q * q, q * q + 1, 10 * q * q, 2**20, 2**24 + 7):
-            if q * q <= b <= ceiling:
+    longest = 2**20 + 7          # a listing of at most about 82,000 primes
+    for q in (2, 3, 5, 7, 11, 13, 31, 97, 251, 1021):
+        for b in (q * q, q * q + 1, 10 * q * q, 2**20, longest):
+            if q * q <= b <= min(ceiling, longest):
                 found.update(((q, b), (q - 1, b)))
     return sorted(found)
 
