@@ -46,6 +46,16 @@ def audit_with_records(spec: str, role: str, tmp_path_factory, seed: int = 7,
     return summary, engine.read_records(path)
 
 
+@pytest.fixture(autouse=True)
+def _terminal_environment(monkeypatch):
+    """Each test states its terminal: a colour-capable TERM, no NO_COLOR, a fixed width, unless
+    the test sets otherwise (CI runners and editors often export TERM=dumb or NO_COLOR)."""
+    monkeypatch.setenv("TERM", "xterm-256color")
+    monkeypatch.setenv("COLUMNS", "120")
+    for name in ("NO_COLOR", "FORCE_COLOR"):
+        monkeypatch.delenv(name, raising=False)
+
+
 @pytest.fixture(scope="module")
 def failing_prime_pi(tmp_path_factory):
     entry = SCENARIO.entry("prime_pi")          # the 16-bit tallies that wrap from 2**20 on
