@@ -59,7 +59,7 @@ def load_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
         text = data.decode("utf-8")
     except UnicodeDecodeError as error:
         raise InvalidInputError(f"{name}: not UTF-8 text (byte {error.start})") from None
-    aliases = 0
+    aliases = total = 0                 # total: nodes so far, aliases expanded
     sizes: dict[str, int] = {}          # anchor -> nodes of its subtree, aliases expanded
     open_nodes: list[list] = [[None, 0]]  # [anchor, nodes so far] per open collection
     try:
@@ -69,13 +69,17 @@ def load_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
                 aliases += 1
                 if aliases > max_aliases:
                     raise InvalidInputError(f"{name}: line {line}: more than {max_aliases} aliases")
-                open_nodes[-1][1] += sizes.get(event.anchor, 1)
+                added = sizes.get(event.anchor, 1)
+                open_nodes[-1][1] += added
+                total += added
             elif isinstance(event, yaml.ScalarEvent):
                 open_nodes[-1][1] += 1
+                total += 1
                 if event.anchor is not None:
                     sizes[event.anchor] = 1
             elif isinstance(event, (yaml.MappingStartEvent, yaml.SequenceStartEvent)):
                 open_nodes.append([event.anchor, 1])
+                total += 1
                 if len(open_nodes) - 1 > max_depth:
                     raise InvalidInputError(f"{name}: line {line}: nested more than {max_depth} "
                                             "levels deep")
@@ -84,7 +88,7 @@ def load_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
                 if anchor is not None:
                     sizes[anchor] = count
                 open_nodes[-1][1] += count
-            if open_nodes[-1][1] > max_nodes or sum(c for _, c in open_nodes) > max_nodes:
+            if total > max_nodes:
                 raise InvalidInputError(f"{name}: line {line}: more than {max_nodes} nodes with "
                                         "its aliases expanded")
         return yaml.load(text, Loader=yaml.SafeLoader)

@@ -7,20 +7,13 @@ import threading
 import pytest
 import yaml
 
-from oracle import InvalidInputError, engine, targets
-from oracle.engine import AuditOptions
+import _auditing
+from oracle import InvalidInputError, engine
 from oracle.engine import _corpus
 
 
-def audit(spec, role, tmp_path, *, maximum=3000, profile="quick", seed=3, **options):
-    target = targets.python_target(spec, role_name=role, timeout=2.0)
-    try:
-        return engine.run_audit(target, AuditOptions(role=role, profile=profile, seed=seed,
-                                                     maximum=maximum, stream=str(tmp_path / "r.jsonl"),
-                                                     corpus=str(tmp_path / "regressions.yaml"),
-                                                     **options))
-    finally:
-        target.close()
+def audit(spec, role, tmp_path, *, maximum=3000, **options):
+    return _auditing.audit(spec, role, tmp_path, maximum=maximum, **options)
 
 
 def write_corpus(path, entries):

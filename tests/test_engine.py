@@ -4,24 +4,10 @@ import json
 
 import pytest
 
+from _auditing import SMALL, audit
 from oracle import InvalidInputError, engine, sampling, targets
 from oracle.engine import AuditOptions
 from oracle.engine._audit import BATCH
-
-SMALL = 20_000      # declared domain keeping these runs fast; the points above are skipped
-
-
-def audit(spec, role, tmp_path, *, maximum=SMALL, profile="quick", isolate=False, seed=3, **options):
-    target = targets.python_target(spec, role_name=role, timeout=options.pop("timeout", 2.0),
-                                   isolate=isolate)
-    try:
-        return engine.run_audit(target, AuditOptions(role=role, profile=profile, seed=seed,
-                                                     maximum=maximum, stream=str(tmp_path / "r.jsonl"),
-                                                     corpus=str(tmp_path / "regressions.yaml"),
-                                                     **options))
-    finally:
-        target.close()
-
 
 def test_correct_candidate_passes_and_skips_above_its_domain(tmp_path):
     summary = audit("_candidates:prime_pi", "prime_pi", tmp_path)
