@@ -177,8 +177,15 @@ NON_CANONICAL_360 = {
     "the prime 2 listed twice": [(2, 1), (3, 2), (2, 2), (5, 1)],
     "factors not in ascending order": [(5, 1), (3, 2), (2, 3)],
     "an exponent 0": [(2, 3), (3, 2), (5, 1), (7, 0)],
-    "a factor 1": [1, 2, 2, 2, 3, 3, 5],
 }
+
+
+@pytest.mark.parametrize("shape", ["any", "flat"])
+def test_a_factor_1_is_wrong_under_every_shape(shape):
+    # 1 is not prime, so [1, 2, 2, 2, 3, 3, 5] is not a factorisation into primes (and the
+    # zoo member factor_one, factor(1) = {1: 1}, must stay caught)
+    assert not judge("factor", (360,), [1, 2, 2, 2, 3, 3, 5], Conventions(factor_shape=shape)).passed
+    assert not judge("factor", (1,), {1: 1}).passed
 
 
 @pytest.mark.parametrize("irregularity", sorted(NON_CANONICAL_360))
@@ -203,6 +210,6 @@ def test_mapping_with_zero_exponent_and_canonical_answers_carry_no_warning():
         roles.get("factor").normalise({2: 3, 3: 2, 5: 1, 7: 0}, Conventions(factor_shape="mapping"))
     assert judge("factor", (360,), {5: 1, 2: 3, 3: 2}).detail == ""    # a mapping has no order
     assert judge("factor", (360,), [(2, 3), (3, 2), (5, 1)]).detail == ""
-    assert judge("factor", (1,), [1]).passed                          # factor(1) = [1]: warned
+    assert not judge("factor", (1,), [1]).passed                      # factor(1) is empty, not [1]
     with pytest.raises(WrongType):
         roles.get("factor").normalise([(2, -1)], CONVENTIONS)

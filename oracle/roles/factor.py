@@ -6,11 +6,12 @@ bound, Baillie–PSW ``probable`` above -- a probable prime is not a proven prim
 
 The canonical form (fundamental theorem of arithmetic) lists each prime once, in
 ascending order, with an exponent ≥ 1.  Non-canonical answers -- a prime listed
-twice in (p, e) pairs, pairs or a flat list out of order, entries with e = 0, a
-factor 1 -- describe the same number, and code downstream that assumes the
-canonical form breaks on them (common practice).  Under a strict declared shape
-(``pairs``, ``flat``, ``mapping``) they are a failure; under ``any`` the answer
-is judged on its merged form and the verdict's detail carries a warning.
+twice in (p, e) pairs, pairs or a flat list out of order, entries with e = 0 --
+describe the same number, and code downstream that assumes the canonical form
+breaks on them (common practice).  Under a strict declared shape (``pairs``,
+``flat``, ``mapping``) they are a failure; under ``any`` the answer is judged on
+its merged form and the verdict's detail carries a warning.  A factor 1 is not
+an irregular form but a wrong answer (1 is not prime), under every shape.
 """
 
 from __future__ import annotations
@@ -42,7 +43,7 @@ def _normalise(raw: object, conventions: Conventions) -> Factorisation:
         raise WrongType(f"a non-canonical {shape} factorisation: {'; '.join(irregularities)}")
     merged: Counter = Counter()
     for prime, exponent in pairs:
-        if prime != 1 and exponent != 0:
+        if exponent != 0:
             merged[prime] += exponent
     return Factorisation(sorted(merged.items()), irregularities)
 
@@ -51,8 +52,6 @@ def non_canonical(shape: str, pairs: list[tuple[int, int]]) -> tuple[str, ...]:
     """How (p, e) pairs of the given shape depart from the canonical factorisation."""
     found = []
     primes = [p for p, _ in pairs]
-    if 1 in primes:
-        found.append("a factor 1")
     if any(e == 0 for _, e in pairs):
         found.append("an exponent 0")
     if shape == "pairs" and len(set(primes)) < len(primes):
