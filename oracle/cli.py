@@ -91,9 +91,12 @@ def _add_target_options(command) -> None:
                               + " (inferred from the function name when unambiguous)")
     command.add_argument("--timeout", type=float, default=None, metavar="SECONDS",
                          help="per-call limit; a slower call is a 'too slow' finding")
+    command.add_argument("--in-process", action="store_true",
+                         help="call a Python target in this process: faster, but it then shares "
+                              "the harness's memory and can change the verdict; only for code "
+                              "you trust (default: an isolated child process)")
     command.add_argument("--isolate", action="store_true",
-                         help="run a Python target in a child process with a memory limit "
-                              "(executables always are)")
+                         help="the default for Python targets (kept for old command lines)")
     command.add_argument("--memory-limit", type=int, default=4096, metavar="MIB",
                          help="address-space limit of an isolated target (default 4096 MiB)")
     command.add_argument("--half-open", action="store_true",
@@ -294,8 +297,10 @@ def _make_target(spec, command, role, arguments):
                                    memory_limit=memory), "exec"
     if os.getcwd() not in sys.path and "" not in sys.path:
         sys.path.insert(0, os.getcwd())
+    if arguments.in_process and arguments.isolate:
+        raise InvalidInputError("--in-process and --isolate: choose one")
     return targets.python_target(spec, role_name=role, timeout=timeout or 1.0,
-                                 isolate=arguments.isolate, memory_limit=memory), "python"
+                                 isolate=not arguments.in_process, memory_limit=memory), "python"
 
 
 def _role_of(spec, command, given) -> str:

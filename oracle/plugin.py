@@ -88,25 +88,22 @@ def pytest_configure(config):
 
 def _check_targets(settings) -> None:
     """A Python target that cannot be imported, or a command that cannot be found, is a usage
-    error, reported before any test."""
-    import shlex
-    import shutil
-
-    from .targets import load_callable
+    error, reported before any test.  A Python target is imported only in a worker process
+    (the pytest process, which holds the oracle and the judge, never imports candidate code):
+    the worker is started once here to read its handshake."""
+    from . import targets
     from ._errors import InvalidInputError
 
     for target in settings.targets:
-        if target.kind == "exec":
-            argv = shlex.split(target.spec)
-            if not argv or shutil.which(argv[0]) is None:
-                raise pytest.UsageError(f"ntoracle: {target.source}={target.role}={target.spec}: "
-                                        "no such command")
-        else:
-            try:
-                load_callable(target.spec)
-            except InvalidInputError as error:
-                raise pytest.UsageError(f"ntoracle: {target.source}: {error} (is its folder on "
-                                        "sys.path? pytest's 'pythonpath' ini key adds it)") from None
+        try:
+            if target.kind == "exec":
+                targets.exec_target(target.spec, role_name=target.role, timeout=1.0).close()
+            else:
+                targets.python_target(target.spec, role_name=target.role, timeout=1.0).close()
+        except InvalidInputError as error:
+            hint = (" (is its folder on sys.path? pytest's 'pythonpath' ini key adds it)"
+                    if target.kind != "exec" else "")
+            raise pytest.UsageError(f"ntoracle: {target.source}: {error}{hint}") from None
 
 
 def _hypothesis_profiles(config, settings) -> None:

@@ -12,7 +12,8 @@ The order of work:
    inputs outside the domain (where a hang costs a whole timeout);
 2. each answer is normalised and judged by the role (:mod:`oracle.roles`);
    faults -- an exception, a wrong type, a timeout ("too slow"), a dead
-   process -- are findings, never errors of the harness;
+   process, a broken protocol, a huge integer or an endless iterator -- are
+   findings, never errors of the harness;
 3. a sample of answers is asked again: a different answer is "nondeterministic";
 4. the role's identities across answers (monotone counts, short-interval
    differences beyond exact reach, p_n increasing);
@@ -54,7 +55,8 @@ from .. import roles as roles_module
 from .. import sampling
 from .._errors import InvalidInputError, OracleError, OutOfReachError
 from ..roles import Conventions, Role, WrongType
-from ..targets import CRASHED, OK, RAISED, TIMEOUT
+from ..targets import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT
+from ..targets._worker import Overlong, Oversized
 from ._corpus import load_corpus, record_failures
 from ._records import FAILURE_STATUSES, RecordStream, jsonable, summarise
 
@@ -151,6 +153,7 @@ class _Run:
                                 if options.stop_after is not None else self.profile.enough_findings)
         #: What the role remembers during this run (exact values found so far), or None.
         self.memory = self.role.memory() if self.role.memory is not None else None
+        self.tampered: list[str] = []       # what a candidate in this process changed
 
     def elapsed(self) -> float:
         return round(time.perf_counter() - self.started, 6)
@@ -178,11 +181,11 @@ class _Run:
                 self.timed_out_sizes.append(role.magnitude(arguments))
             return self.record("too-slow", "timeout", family, arguments, detail=result.error,
                                seconds=result.seconds)
-        if result.status == CRASHED:
+        if result.status in (CRASHED, BAD_OUTPUT):
             self.faults += 1
             self.crashes += 1
-            return self.record("crashed", "process", family, arguments, detail=result.error,
-                               seconds=result.seconds)
+            return self.record(result.status, "process" if result.status == CRASHED else "protocol",
+                               family, arguments, detail=result.error, seconds=result.seconds)
         if invalid:
             if result.status == OK and conventions.invalid_input == "raise":
                 return self.record("wrong", "invalid-input", family, arguments, got=result.value,
@@ -195,6 +198,9 @@ class _Run:
         if result.status == RAISED:
             return self.record("raised", "exception", family, arguments, detail=result.error,
                                seconds=result.seconds)
+        if isinstance(result.value, (Oversized, Overlong)):
+            return self.record("wrong", "size", family, arguments, got=repr(result.value),
+                               detail=f"returned {repr(result.value)[1:-1]}", seconds=result.seconds)
         try:
             value = role.normalise(result.value, conventions)
         except WrongType as error:
@@ -246,6 +252,7 @@ class _Run:
         """Ask the points in batches; batches start at one call and double up to :data:`BATCH`
         while calls are fast, and fall back to one call when calls become slow, time out or
         crash, so that the time budget and the skipping rules act within about one call."""
+        points = list(points)
         start, size = 0, 1
         while start < len(points):
             batch = []
@@ -258,7 +265,9 @@ class _Run:
                     self.skipped.setdefault(reason, []).append(self.role.magnitude(arguments))
             start += size
             began = time.perf_counter()
-            results = self.target.call_many([a for _, a in batch]) if batch else []
+            results = self.target.call_many([a for _, a in batch], stop_on_fault=True) if batch else []
+            if len(results) < len(batch):       # a fault cut the batch short: ask the rest again
+                points[start:start] = batch[len(results):]
             faults_before = self.faults
             for (family, arguments), result in zip(batch, results):
                 self.judge(family, arguments, result, invalid=invalid)
@@ -291,7 +300,7 @@ class _Run:
         chosen += rng.sample(others, min(self.profile.reask - len(chosen), len(others)))
         over_budget = self.over_budget()
         chosen = [arguments for arguments in chosen if self.runnable(arguments, over_budget) is None]
-        for arguments, result in zip(chosen, self.target.call_many(chosen)):
+        for arguments, result in zip(chosen, self.target.call_many(chosen, stop_on_fault=True)):
             if result.status != OK:
                 self.judge("reask", arguments, result)
                 continue
@@ -379,6 +388,18 @@ class _Run:
         return {"kind": f"first {kind} prime", "prime": prime, "input": record["arguments"],
                 "provenance": record["provenance"], "detail": record["detail"]}
 
+    def check_harness(self) -> None:
+        """A candidate run in this process that changed the oracle, the engine or the builtins
+        voids the verdict: that is a finding of its own (:mod:`oracle.targets._tamper`)."""
+        tampered = getattr(self.target, "tampered", None)
+        changed = tampered() if callable(tampered) else []
+        self.tampered = changed
+        if changed:
+            self.record("tampered", "harness", "harness", (), detail=(
+                f"the candidate changed the harness it runs in: {', '.join(changed[:5])}"
+                + (f" and {len(changed) - 5} more" if len(changed) > 5 else "")
+                + "; every verdict of this run is void (run it isolated, the default)"))
+
     def write_skipped(self) -> None:
         for reason, sizes in self.skipped.items():
             self.stream.write({"type": "skipped", "reason": reason, "count": len(sizes),
@@ -463,6 +484,7 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
         found = run.divergence()
         if found is not None:
             stream.write({"type": "divergence", **jsonable(found)})
+        run.check_harness()
         run.write_skipped()
         stream.write({"type": "end", "elapsed": run.elapsed()})
     except BaseException as error:      # Ctrl-C included: save what was found, then say so
@@ -476,9 +498,11 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
     finally:
         stream.close()
     summary = summarise(stream.records)
+    if run.tampered:        # even if the candidate also changed how the summary is made
+        summary.update(passed=False, verdict="failed", tampered=run.tampered)
     if options.corpus and only is None:
         calls = [r for r in stream.records if r.get("type") == "check"   # all on record, even
-                 and r["status"] in FAILURE_STATUSES and r["family"] != "identity"]  # if cut short
+                 and r["status"] in FAILURE_STATUSES and r["family"] not in ("identity", "harness")]  # if cut short
         summary["corpus_added"] = record_failures(options.corpus, calls, target=target.description,
                                                   role=role.name, seed=seed, profile=chosen.name,
                                                   kind=kind)

@@ -48,7 +48,8 @@ SKIPS_KEEPING_COMPLETE = ("above the declared domain (--max)", "out of the oracl
                            "outside the domain, after a hang there")
 
 #: Statuses of a check that count as findings against the candidate.
-FAILURE_STATUSES = ("wrong", "wrong-type", "raised", "too-slow", "crashed", "nondeterministic")
+FAILURE_STATUSES = ("wrong", "wrong-type", "raised", "too-slow", "crashed", "bad-output",
+                    "nondeterministic", "tampered")
 
 
 def jsonable(value: object) -> object:

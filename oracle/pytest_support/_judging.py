@@ -69,7 +69,7 @@ class CallableTarget:
         self.function = function
         self.description = description or getattr(function, "__qualname__", repr(function))
 
-    def call_many(self, calls) -> list[CallResult]:
+    def call_many(self, calls, *, stop_on_fault: bool = False) -> list[CallResult]:
         return [self._call(arguments) for arguments in calls]
 
     def _call(self, arguments) -> CallResult:

@@ -24,7 +24,7 @@ objects, in the order given.  The keys of an audit, always in this order:
     how many of them passed.
 ``failures``
     a list, one object per failed check: ``status`` (``wrong``, ``wrong-type``,
-    ``raised``, ``too-slow``, ``crashed`` or ``nondeterministic``), ``check`` (the
+    ``raised``, ``too-slow``, ``crashed``, ``bad-output``, ``nondeterministic`` or ``tampered``), ``check`` (the
     comparison: ``exact``, ``proven-interval``, ``monotone``, ``listing``,
     ``factorization``, ...), ``family`` (where the input came from: ``tables``,
     ``boundaries``, ``pseudoprimes``, ``identity``, ...), ``arguments`` (a list of
