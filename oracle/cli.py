@@ -501,6 +501,11 @@ def _print_summary(summary: dict, listed: int = 20) -> None:
         reservations.append(f"{summary['not_run']} point(s) not run: {reasons}")
     if summary.get("garbled_lines"):
         reservations.append(f"{summary['garbled_lines']} garbled line(s) skipped")
+    if summary.get("tampered"):
+        reservations.append("the candidate changed the harness it ran in ("
+                            + ", ".join(summary["tampered"][:3])
+                            + (", ..." if len(summary["tampered"]) > 3 else "")
+                            + "): every check of this run is void; audit it isolated (the default)")
     print(f"{verdict}: {summary['passed_checks']} of {summary['checks']} checks passed, "
           f"{len(failures)} finding(s)" + "".join(f" -- {r}" for r in reservations))
     for failure in failures[:listed]:

@@ -91,19 +91,24 @@ def _check_targets(settings) -> None:
     error, reported before any test.  A Python target is imported only in a worker process
     (the pytest process, which holds the oracle and the judge, never imports candidate code):
     the worker is started once here to read its handshake."""
+    import shlex
+    import shutil
+
     from . import targets
     from ._errors import InvalidInputError
 
     for target in settings.targets:
+        if target.kind == "exec":
+            argv = shlex.split(target.spec)
+            if not argv or shutil.which(argv[0]) is None:
+                raise pytest.UsageError(f"ntoracle: {target.source}={target.role}={target.spec}: "
+                                        "no such command")
+            continue
         try:
-            if target.kind == "exec":
-                targets.exec_target(target.spec, role_name=target.role, timeout=1.0).close()
-            else:
-                targets.python_target(target.spec, role_name=target.role, timeout=1.0).close()
+            targets.python_target(target.spec, role_name=target.role, timeout=1.0).close()
         except InvalidInputError as error:
-            hint = (" (is its folder on sys.path? pytest's 'pythonpath' ini key adds it)"
-                    if target.kind != "exec" else "")
-            raise pytest.UsageError(f"ntoracle: {target.source}: {error}{hint}") from None
+            raise pytest.UsageError(f"ntoracle: {target.source}: {error} (is its folder on "
+                                    "sys.path? pytest's 'pythonpath' ini key adds it)") from None
 
 
 def _hypothesis_profiles(config, settings) -> None:

@@ -53,7 +53,7 @@ def test_executable_survives_crash_hang_and_refusal(exec_pi):
     assert [r.status for r in results] == ["ok", "crashed", "ok", "timeout", "ok", "raised"]
     assert [results[0].value, results[2].value, results[4].value] == [4, 25, 168]   # OEIS A006880
     assert "SIGSEGV" in results[1].error
-    assert exec_pi.restarts == 2
+    assert exec_pi.restarts >= 2     # a batch that faults is asked again one request at a time
 
 
 def test_isolated_python_target_keeps_types_and_contains_a_crash():

@@ -74,12 +74,12 @@ class CallableTarget:
 
     def _call(self, arguments) -> CallResult:
         started = time.perf_counter()
+        from ..targets._worker import bounded_answer, describe_exception
+
         try:
-            value = self.function(*arguments)
-            if hasattr(value, "__next__"):
-                value = list(value)
+            value = bounded_answer(self.function(*arguments))
         except Exception as error:
-            return CallResult(RAISED, error=f"{type(error).__name__}: {error}"[:300],
+            return CallResult(RAISED, error=describe_exception(error),
                               seconds=time.perf_counter() - started)
         return CallResult(OK, value, seconds=time.perf_counter() - started)
 

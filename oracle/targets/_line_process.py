@@ -53,7 +53,7 @@ MAX_OUTPUT = 64 * 2**20
 _STARTUP_GRACE = 3.0      # seconds a fresh process may take for its first answer, on top of the timeout
 _IMPORT_GRACE = 60.0      # seconds the worker may take to import the candidate
 _EXIT_GRACE = 2.0         # seconds a child that closed its output may take to exit
-_SETTLE = 0.02            # seconds to wait for a surplus line when asking one at a time
+_SETTLE = 0.005           # seconds to wait for a surplus line when asking one at a time
 _WORKER = str(Path(__file__).with_name("_worker.py"))
 
 #: The launcher of an executable: set the limits, then become the candidate (stdlib only).
@@ -250,15 +250,44 @@ class LineProcess:
         """The results of ``calls`` in order; with ``stop_on_fault`` the list ends at the first
         call that timed out, crashed or broke the protocol (the caller decides about the rest,
         instead of paying a timeout or a restart for each of them)."""
+        if self.worker_spec is None and self._surplus():
+            self._kill()        # lines left over from the last batch: start in step again
         results = self._pipelined(calls, stop_on_fault=stop_on_fault)
-        if self.worker_spec is None and results and self._surplus():
-            self._kill()
-            results = []
-            for arguments in calls:
-                results.append(self._one(arguments))
-                if stop_on_fault and results[-1].status not in (OK, RAISED):
-                    break
-        return results
+        if self.worker_spec is not None or len(calls) < 2:
+            return results
+        faulted = next((i for i, r in enumerate(results) if r.status not in (OK, RAISED)), None)
+        if faulted is None and not self._surplus(_SETTLE):
+            return results
+        return self._realigned(calls, results, faulted, stop_on_fault)
+
+    def _realigned(self, calls, results: list[CallResult], faulted: int | None,
+                   stop_on_fault: bool) -> list[CallResult]:
+        """The results of an executable's batch that printed more lines than it was asked for,
+        or that faulted while several requests were in flight (an extra line earlier would
+        have shifted the fault onto the wrong request): the calls are asked again one at a
+        time, each followed by a look for a surplus line.  When the calls before a fault
+        answer as they did, the fault was where it seemed and is not paid for twice."""
+        self._kill()
+        again: list[CallResult] = []
+        upto = faulted if faulted is not None else len(calls)
+        for index in range(upto):
+            again.append(self._one(calls[index]))
+            if again[-1].status not in (OK, RAISED):
+                faulted = None if faulted is None else faulted      # a fault of its own
+                break
+        aligned = (faulted is not None and len(again) == upto
+                   and all(a.status == r.status and a.value == r.value
+                           for a, r in zip(again, results)))
+        if aligned:
+            return again + [results[faulted]] + ([] if stop_on_fault else
+                                                 self._pipelined(calls[faulted + 1:]))
+        if stop_on_fault and again and again[-1].status not in (OK, RAISED):
+            return again
+        for index in range(len(again), len(calls)):
+            again.append(self._one(calls[index]))
+            if stop_on_fault and again[-1].status not in (OK, RAISED):
+                break
+        return again
 
     def _pipelined(self, calls: Sequence[tuple[int, ...]], window: int = WINDOW,
                    stop_on_fault: bool = False) -> list[CallResult]:

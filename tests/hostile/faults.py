@@ -96,7 +96,7 @@ class AlwaysEqual:
 
 
 def always_equal(x):
-    return AlwaysEqual()
+    return AlwaysEqual() if x >= TRIGGER else _count(x)
 
 
 class LyingInt(int):
@@ -107,7 +107,7 @@ class LyingInt(int):
 
 
 def lying_int(x):
-    return LyingInt(0)
+    return LyingInt(0) if x >= TRIGGER else _count(x)
 
 
 def raises_at_import_time():

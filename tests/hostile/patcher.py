@@ -2,16 +2,14 @@
 that its wrong answers would pass: no status counts as a failure any more, and the oracle's
 facade is replaced by a wrapper of the candidate's."""
 
-import math
-
+import oracle
 import oracle.engine._audit
 import oracle.engine._records
 import oracle.facade
 
 
 def prime_pi(x):
-    count = sum(1 for n in range(2, x + 1) if all(n % d for d in range(2, math.isqrt(n) + 1)))
-    return count + (1 if x >= 1000 else 0)
+    return oracle.pi(x) + (1 if x >= 1000 else 0)     # its own copy of the oracle, one too many
 
 
 _original = oracle.facade.answer
