@@ -26,6 +26,7 @@ from oracle._errors import InvalidInputError
 from oracle.cli import build_parser
 from oracle.demo import SCENARIO
 from oracle.report import _json, _plot_data
+from oracle.report._html import render_html
 
 PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"          # PNG specification, section 5.2
 HOSTILE = "<script>alert(1)</script>"
@@ -419,7 +420,7 @@ def test_reproduce_command_is_understood_by_the_audit_command(failing_prime_pi):
     parsed = build_parser().parse_args(shlex.split(command)[1:])
     assert parsed.command == "audit" and parsed.target == SCENARIO.entry("prime_pi").target
     assert (parsed.role, parsed.profile, parsed.seed, parsed.maximum) == \
-        ("prime_pi", "quick", "7", str(2**24))
+        ("prime_pi", "quick", 7, str(2**24))   # --seed is read as an integer
     assert parsed.timeout == 5.0              # the quick profile's timeout, as recorded
 
 
@@ -433,3 +434,39 @@ def test_reproduce_command_of_an_executable_with_conventions():
                        "--seed 5 --timeout 2.5 --invalid-input raise --half-open")
     parsed = build_parser().parse_args(shlex.split(command)[1:])
     assert parsed.exec_command == "./my_primes --fast" and parsed.half_open
+
+
+# -- a run without a verdict is not said to have failed (issue 11) ------------ #
+
+def _without_end(records):
+    """The records of a run cut before its end record (a torn or killed run)."""
+    return [record for record in records if record.get("type") != "end"]
+
+
+def test_a_run_without_a_verdict_is_never_called_failed(passing_nth_prime, failing_prime_pi):
+    from oracle.report._describe import verdict_of
+
+    records = _without_end(passing_nth_prime[1])
+    summary = engine.summarise(records)
+    assert summary["verdict"] == "no verdict" and not summary["passed"] and not summary["failures"]
+    assert verdict_of(summary) == "no verdict"
+    assert verdict_of(engine.summarise(_without_end(failing_prime_pi[1]))) == "failed"  # findings stay
+    assert verdict_of(failing_prime_pi[0]) == "failed" and verdict_of(passing_nth_prime[0]) == "passed"
+    assert verdict_of(engine.summarise([])) == "no verdict"               # no check at all
+    stream = io.StringIO()
+    report.summary_table(summary, stream, colour=False)
+    row = next(line for line in stream.getvalue().splitlines() if line.strip().startswith("nth_prime"))
+    assert "NO VERDICT" in row and "FAILED" not in row
+    page = render_html([(summary, records), failing_prime_pi])
+    assert "1 audit(s)" not in page and "0 without findings, 1 with findings, 1 without a verdict" in page
+    section = page[page.index('<section id="run-0">'):page.index('<section id="run-1">')]
+    assert '<span class="no-verdict">no verdict</span>' in section and "failed</span>" not in section
+    assert "interrupted before its end" in section
+    parse(page)                                                            # still well formed
+
+
+def test_an_early_stopped_failed_run_is_partial_not_interrupted(failing_prime_pi):
+    summary, records = failing_prime_pi
+    cut = dict(summary, complete=False, not_run=3)
+    section = render_html([(cut, records)])
+    assert "not every point was run" in section and "interrupted before its end" not in section

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import json
 
-__all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of"]
+__all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of", "VERDICT_CLASSES"]
 
 #: Longest text shown for one value; longer ones are cut and say how long they were.
 VALUE_LIMIT = 160
@@ -62,8 +62,21 @@ def describe_divergence(divergence: dict | None, limit: int = 40) -> str:
 
 
 def verdict_of(summary: dict) -> str:
-    """``passed``, ``failed``, or ``incomplete`` for a run that stopped before its end
-    without a finding (an incomplete run has not passed)."""
-    if not summary["passed"]:
-        return "failed"
-    return "passed" if summary["complete"] else "incomplete"
+    """``passed``, ``failed`` (a check found a defect), ``no verdict`` (no check completed, or
+    the run has no end record: nothing was found, so nothing is said to have failed), or
+    ``incomplete`` for a run that passed the checks it made but left points not run.
+
+    The summary's own ``verdict`` (:func:`oracle.engine.summarise`) decides; a summary of an
+    older version without it is judged by its failures."""
+    verdict = summary.get("verdict")
+    if verdict not in ("passed", "failed", "no verdict"):
+        verdict = ("failed" if summary.get("failures") else
+                   "passed" if summary.get("passed") else "no verdict")
+    if verdict == "passed" and not summary.get("complete", True):
+        return "incomplete"
+    return verdict
+
+
+#: The CSS class (HTML) of each verdict of :func:`verdict_of`.
+VERDICT_CLASSES = {"passed": "passed", "failed": "failed", "incomplete": "incomplete",
+                   "no verdict": "no-verdict"}
