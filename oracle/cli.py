@@ -17,6 +17,7 @@ import sys
 import time
 
 from ._errors import InvalidInputError, OracleError, OutOfReachError
+from ._bounded import bounded_text
 from ._integers import parse_integer
 from ._options import (MAX_SEED, check_output_file, check_output_folder, integer_option,
                        memory_option, seconds_option)
@@ -496,11 +497,11 @@ def _describe(failure: dict) -> str:
     call = ", ".join(str(a) for a in failure["arguments"])
     text = f"[{failure['status']}] {failure['check']} at ({call}) [{failure['family']}]"
     if failure["status"] in ("wrong", "nondeterministic"):
-        got = str(failure["got"])
-        expected = str(failure["expected"])
-        text += f": got {got[:80]}, expected {expected[:80]} [{failure['provenance']}]"
-    if failure.get("detail") and not failure["detail"].startswith("got "):
-        text += f" -- {failure['detail'][:160]}"
+        got = bounded_text(failure["got"], 80)
+        expected = bounded_text(failure["expected"], 80)
+        text += f": got {got}, expected {expected} [{failure['provenance']}]"
+    if failure.get("detail") and not str(failure["detail"]).startswith("got "):
+        text += f" -- {bounded_text(failure['detail'], 160)}"
     return text
 
 
@@ -532,7 +533,8 @@ def _print_summary(summary: dict, listed: int = 20) -> None:
         where = divergence.get("prime", divergence.get("input"))
         print(f"{divergence['kind']}: {where}"
               + (f" (last agreeing: {divergence['last_agreeing']})" if "last_agreeing" in divergence else "")
-              + (f"; got {divergence.get('got')}, expected {divergence.get('expected')}"
+              + (f"; got {bounded_text(divergence.get('got'), 80)}, "
+                 f"expected {bounded_text(divergence.get('expected'), 80)}"
                  if "got" in divergence else "")
               + (f" [{divergence['provenance']}]" if divergence.get("provenance") else ""))
     for reason, count in summary["skipped"].items():

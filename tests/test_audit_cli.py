@@ -184,6 +184,7 @@ def test_out_of_range_options_exit_2_with_one_line_naming_the_option(capsys, in_
     ["demo", "--seed", "18446744073709551616"],
     ["value", "pi", "10", "--budget", "inf"],
     ["value", "pi", "10", "--budget", "nan"],
+    ["value", "pi", "10", "--budget", "-1"],
     ["audit", "_candidates:prime_pi", "--max", "10**10**10"],
 ])
 def test_seed_budget_and_max_are_bounded(capsys, in_tmp, argv):

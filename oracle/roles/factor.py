@@ -19,7 +19,7 @@ from __future__ import annotations
 from collections import Counter
 
 from .. import facade
-from ._role import Conventions, Role, Verdict, WrongType, as_integer
+from ._role import Conventions, Role, Verdict, WrongType, _shown, as_integer
 
 
 class Factorisation(tuple):
@@ -66,7 +66,7 @@ def _shape_and_pairs(raw: object) -> tuple[str, list[tuple[int, int]]]:
     if isinstance(raw, dict):
         return "mapping", [(as_integer(p), _exponent(e)) for p, e in raw.items()]
     if raw is None or isinstance(raw, (str, bytes, int, float)):
-        raise WrongType(f"{type(raw).__name__} {raw!r:.60} where a factorisation is expected")
+        raise WrongType(f"{type(raw).__name__} {_shown(raw)} where a factorisation is expected")
     tolist = getattr(raw, "tolist", None)
     items = list(tolist() if callable(tolist) else raw)
     if all(isinstance(item, (tuple, list)) for item in items) and items:
