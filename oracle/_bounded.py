@@ -22,6 +22,7 @@ takes them for the candidate's whole answer.
 from __future__ import annotations
 
 import math
+import re
 import reprlib
 
 __all__ = ["TEXT_LIMIT", "VALUE_LIMIT", "INTEGER_DIGITS", "bounded_text", "bounded_value",
@@ -37,6 +38,7 @@ INTEGER_DIGITS = 4200
 _DEPTH = 6
 
 _LOG10_2 = math.log10(2)
+_CUT = re.compile(r"\.\.\. \((\d+) characters\)\Z")
 
 
 def integer_digits(number: int) -> int:
@@ -101,7 +103,8 @@ def bounded_text(value: object, limit: int = TEXT_LIMIT) -> str:
             text = f"<{type(value).__name__} object>"
         return text if len(text) <= limit else text[:limit] + "..."
     if len(text) > limit:
-        return f"{text[:limit]}... ({len(text)} characters)"
+        found = _CUT.search(text)                   # cut before: keep the size it had then
+        return f"{text[:limit]}... ({found.group(1) if found else len(text)} characters)"
     return text
 
 

@@ -497,8 +497,10 @@ def _describe(failure: dict) -> str:
     call = ", ".join(str(a) for a in failure["arguments"])
     text = f"[{failure['status']}] {failure['check']} at ({call}) [{failure['family']}]"
     if failure["status"] in ("wrong", "nondeterministic"):
-        got = bounded_text(failure["got"], 80)
-        expected = bounded_text(failure["expected"], 80)
+        from .report._describe import show_value
+
+        got = show_value(failure["got"], 80)
+        expected = show_value(failure["expected"], 80)
         text += f": got {got}, expected {expected} [{failure['provenance']}]"
     if failure.get("detail") and not str(failure["detail"]).startswith("got "):
         text += f" -- {bounded_text(failure['detail'], 160)}"

@@ -272,3 +272,39 @@ def test_replay_and_summary_check_the_json_path_and_demo_the_report_folder(capsy
     code, err = usage_error(capsys, "demo", "--report", "afile/rep")
     assert code == 2 and "--report" in err
     assert sorted(p.name for p in in_tmp.iterdir()) == ["afile", "c.yaml", "r.jsonl"]
+
+
+HUGE_CANDIDATES = '''
+TEXT = "<b>" + "y" * (10 * 2**20)
+LISTING = list(range(10**7))
+
+def prime_pi(x):
+    return 10**100000 + x
+
+def is_prime(n):
+    return TEXT
+
+def primes_in(a, b):
+    return LISTING
+'''
+
+
+@pytest.mark.parametrize("function, shown", [
+    ("prime_pi", "got an integer of 100001 digits"),       # 10**100000 + x: 100001 digits
+    ("is_prime", f"({3 + 10 * 2**20} characters)"),
+    ("primes_in", "(10000000 items in all)"),
+])
+def test_huge_answers_are_shown_cut_in_the_terminal_and_stored_bounded(capsys, in_tmp, function,
+                                                                        shown):
+    (in_tmp / "huge_answers.py").write_text(HUGE_CANDIDATES)
+    code, out, err = run(capsys, "audit", f"huge_answers:{function}", "--profile", "quick",
+                         "--max", "40", "--seed", "1", "--stop-after", "2", "--no-corpus",
+                         "--stream", "r.jsonl", "--json", "s.json", "--report", "rep")
+    assert code == 1, err
+    assert shown in out                                         # the terminal
+    page = (in_tmp / "rep" / "report.html").read_text()
+    assert shown in page and "<b>" not in page                   # the HTML report, escaped
+    assert max(len(line) for line in out.splitlines()) < 1000
+    for name in ("r.jsonl", "s.json", "rep/summary.json", "rep/report.txt"):
+        assert max(len(line) for line in (in_tmp / name).read_bytes().splitlines()) < 64 * 2**10
+    assert (in_tmp / "s.json").stat().st_size < 256 * 2**10

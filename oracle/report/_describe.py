@@ -3,6 +3,9 @@
 from __future__ import annotations
 
 import json
+import re
+
+from .._bounded import bounded_text, bounded_value
 
 __all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of", "VERDICT_CLASSES"]
 
@@ -19,12 +22,29 @@ def show_value(value: object, limit: int = VALUE_LIMIT) -> str:
     elif isinstance(value, bool):
         text = "true" if value else "false"
     elif isinstance(value, (list, dict)):
-        text = json.dumps(value, separators=(",", ":"))
+        text = json.dumps(bounded_value(value), separators=(",", ":"))
     else:
-        text = str(value)
+        text = bounded_text(value, max(limit, 40))
     if len(text) > limit:
-        return f"{text[:limit]}... ({len(text)} characters)"
+        return f"{text[:limit]}... ({_whole_size(value, text)})"
     return text
+
+
+_CUT_TEXT = re.compile(r"\.\.\. \((\d+ (?:characters|digits))\)\Z")
+_CUT_LIST = re.compile(r"\.\.\. and \d+ more \((\d+) in all\)\Z")
+
+
+def _whole_size(value: object, text: str) -> str:
+    """How large the candidate's value was: a text or listing already cut when it was recorded
+    (oracle._bounded) says so at its end; otherwise the length of ``text``."""
+    if isinstance(value, str) and (found := _CUT_TEXT.search(value)):
+        return found.group(1)
+    if isinstance(value, list) and value and isinstance(value[-1], str) \
+            and (found := _CUT_LIST.search(value[-1])):
+        return f"{found.group(1)} items in all"
+    if isinstance(value, list):
+        return f"{len(value)} items, {len(text)} characters"
+    return f"{len(text)} characters"
 
 
 def show_arguments(arguments: object) -> str:

@@ -107,7 +107,7 @@ def _summary_section(runs, command: str | None) -> list[str]:
         verdict = verdict_of(summary)
         parts.append(
             f'<tr><td><a href="#run-{index}">{_text(summary["role"])}</a></td>'
-            f'<td class="value">{_text(summary["target"])}</td><td>{_text(summary["profile"])}</td>'
+            f'<td class="value">{_text(show_value(summary["target"]))}</td><td>{_text(summary["profile"])}</td>'
             f'<td>{_text(summary["seed"])}</td><td class="number">{_text(summary["checks"])}</td>'
             f'<td class="number">{_text(summary["passed_checks"])}</td>'
             f'<td class="number">{len(summary["failures"])}</td>'
@@ -134,7 +134,7 @@ def _start_record(summary: dict, records: list[dict]) -> dict:
 def _run_section(index: int, summary: dict, records: list[dict]) -> list[str]:
     start = _start_record(summary, records)
     verdict = verdict_of(summary)
-    settings = [("target", start["target"]), ("role", start["role"]), ("profile", start["profile"]),
+    settings = [("target", show_value(start["target"], 400)), ("role", start["role"]), ("profile", start["profile"]),
                 ("seed", start["seed"]), ("timeout per call", _seconds(start.get("timeout"))),
                 ("declared domain", "" if start.get("maximum") is None else f"inputs <= {start['maximum']}"),
                 ("checks", f"{summary['checks']} made, {summary['passed_checks']} passed, "

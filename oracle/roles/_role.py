@@ -88,7 +88,7 @@ class AbsurdAnswer(WrongType):
 def _shown(raw: object, limit: int = 60) -> str:
     """A short repr of a raw answer for a message, never built whole."""
     if isinstance(raw, (str, bytes)):
-        return repr(raw[:limit]) + ("..." if len(raw) > limit else "")
+        return repr(raw[:limit]) + (f"... ({len(raw)} characters)" if len(raw) > limit else "")
     return bounded_text(raw, limit)
 
 
