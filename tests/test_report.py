@@ -565,6 +565,7 @@ def test_digit_counts_from_the_bit_length_agree_with_the_decimal_text():
 
 def test_bounded_text_and_values_never_raise_and_stay_within_their_limits():
     from oracle._bounded import TEXT_LIMIT, VALUE_LIMIT, bounded_text, bounded_value
+    from oracle.engine._records import jsonable
 
     class Hostile:
         def __repr__(self):
@@ -581,4 +582,4 @@ def test_bounded_text_and_values_never_raise_and_stay_within_their_limits():
     assert kept.endswith('"... and 96 more (100 in all)"], "... and 99 more (100 in all)"]')
     assert bounded_value({2: 3, 5: 1}) == {"2": 3, "5": 1}       # a factorisation's primes as keys
     assert bounded_value((1, 2.5, None, True)) == [1, "2.5", None, True]
-    assert engine.jsonable(2**64 + 13) == 2**64 + 13             # exact, as the JSON report promises
+    assert jsonable(2**64 + 13) == 2**64 + 13             # exact, as the JSON report promises
