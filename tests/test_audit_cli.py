@@ -308,3 +308,30 @@ def test_huge_answers_are_shown_cut_in_the_terminal_and_stored_bounded(capsys, i
     for name in ("r.jsonl", "s.json", "rep/summary.json", "rep/report.txt"):
         assert max(len(line) for line in (in_tmp / name).read_bytes().splitlines()) < 64 * 2**10
     assert (in_tmp / "s.json").stat().st_size < 256 * 2**10
+
+
+HUGE_FACTORISATIONS = '''
+def big_exponent(n):
+    return {2: 10**12}                 # 2**(10**12): never to be multiplied out
+
+def big_factor(n):
+    return {10**4100 + 1: 1}           # more digits than any input has
+
+def zero_factor(n):
+    return {0: 1, 3: 10**12}
+'''
+
+
+@pytest.mark.parametrize("function, detail", [
+    ("big_exponent", "the product of the factors has at least"),
+    ("big_factor", "is larger than n"),
+    ("zero_factor", "the factor 0 makes the product 0"),
+])
+def test_absurd_factorisations_are_wrong_answers_not_errors(capsys, in_tmp, function, detail):
+    (in_tmp / "huge_factors.py").write_text(HUGE_FACTORISATIONS)
+    code, out, err = run(capsys, "audit", f"huge_factors:{function}", "--role", "factor",
+                         "--profile", "quick", "--max", "40", "--seed", "1", "--stop-after", "3",
+                         "--no-corpus", "--stream", "r.jsonl")
+    assert code == 1, err
+    assert "[wrong] factorization at (2)" in out and detail in out
+    assert max(len(line) for line in (in_tmp / "r.jsonl").read_bytes().splitlines()) < 64 * 2**10
