@@ -340,6 +340,13 @@ def test_plugin_loads_through_the_entry_point(pytester):
     ("role: is_prime\ntarget: mylib.is_prime\ncases: []\n", 2, "expected package.module:function"),
     ("role: is_prime\nconventions: {colour: red}\ncases:\n  - name: a\n    values: [1]\n", 2,
      "conventions: expected keys among"),
+    ("role: is_prime\ntimeout: .inf\ncases:\n  - name: a\n    values: [1]\n", 2,
+     "must be a finite number of seconds"),
+    ("role: is_prime\ntimeout: .nan\ncases:\n  - name: a\n    values: [1]\n", 2,
+     "must be a finite number of seconds"),
+    ("role: is_prime\ntimeout: 1.0e+20\ncases:\n  - name: a\n    values: [1]\n", 2,
+     "<= 86400"),
+    ("role: is_prime\ntimeout: 0\ncases:\n  - name: a\n    values: [1]\n", 2, "> 0"),
 ])
 def test_malformed_suites_name_the_line_and_the_problem(text, line, problem):
     with pytest.raises(SuiteError) as raised:

@@ -51,6 +51,7 @@ import yaml
 from .. import _safe_yaml
 from .._errors import InvalidInputError
 from .._integers import parse_integer, require_int
+from .._options import positive_seconds
 from ._settings import PROFILE_NAMES, PYTHON_SPEC, ROLE_NAMES
 
 __all__ = ["SuiteError", "Case", "Suite", "Group", "load_suite", "parse_suite", "groups_of"]
@@ -251,10 +252,12 @@ def parse_suite(text: str, path) -> Suite:
         maximum = _integer(located, "max", path, minimum=0)
     timeout = None
     if (located := document.get("timeout")) is not None:
-        if isinstance(located.value, bool) or not isinstance(located.value, (int, float)) \
-                or not located.value > 0:
+        if isinstance(located.value, bool) or not isinstance(located.value, (int, float)):
             raise SuiteError(path, located.line, f"timeout={located.value!r}: expected a positive number")
-        timeout = float(located.value)
+        try:
+            timeout = positive_seconds(located.value, "timeout")
+        except InvalidInputError as error:
+            raise SuiteError(path, located.line, str(error)) from None
     conventions = {}
     if (located := document.get("conventions")) is not None:
         conventions = _conventions(located, path)
