@@ -444,3 +444,23 @@ def test_bomb_and_huge_suites_are_error_items_and_the_session_goes_on(project):
         "malformed ntoracle suite: *bomb.ntoracle.yaml:*: more than * nodes with its aliases expanded*",
         "malformed ntoracle suite: *huge.ntoracle.yaml: * bytes, more than the limit of *",
     ])
+
+
+def test_huge_answers_in_hand_written_checks_fail_with_a_bounded_message(project):
+    project.makepyfile(test_huge='''
+        def test_huge_integer(ntoracle_check):
+            ntoracle_check.answer("prime_pi", 10**6, 10**100000)
+
+        def test_huge_text(ntoracle_check):
+            ntoracle_check.answer("is_prime", 7, "y" * (10 * 2**20))
+
+        def test_huge_listing(ntoracle_check):
+            ntoracle_check("primes_in", lambda a, b: list(range(10**5)), [(0, 10)])
+    ''')
+    result = project.runpytest(*PLUGIN, "--ntoracle-seed", "9")
+    result.assert_outcomes(failed=3)
+    output = result.stdout.str()
+    assert "prime_pi(1000000): wrong (size)" in output and "an integer of 100001 digits" in output
+    assert "is_prime(7): wrong-type (type)" in output and "(10485760 characters)" in output
+    assert "primes_in(0, 10): wrong (listing)" in output and "(100000 items in all)" in output
+    assert max(len(line) for line in output.splitlines()) < 1000

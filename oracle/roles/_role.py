@@ -124,6 +124,8 @@ class Role:
 
 def as_integer(raw: object) -> int:
     """``raw`` as an ``int``: ints and integer-like objects (numpy, gmpy2) only."""
+    if type(raw) is int and raw.bit_length() <= MAX_ANSWER_BITS:       # the common case, first
+        return raw
     if isinstance(raw, bool):
         raise WrongType(f"a bool ({raw!r}) where an integer is expected")
     if isinstance(raw, int):
