@@ -78,7 +78,7 @@ def run_demo(report_dir: str | Path = "ntoracle-report", *, seed: int = DEMO_SEE
 def _print_role(out: TextIO, role: str, entry, summary: dict) -> None:
     from ..report import describe_divergence
 
-    verdict = "PASSED" if summary["passed"] else "FAILED"
+    verdict = {"passed": "PASSED", "failed": "FAILED"}.get(summary.get("verdict"), "NO VERDICT")
     print(f"{role:<11} {verdict}  {summary['passed_checks']}/{summary['checks']} checks, "
           f"{len(summary['failures'])} finding(s), {summary['timings']['total_seconds']:.1f} s",
           file=out)

@@ -54,7 +54,8 @@ from typing import Callable
 from .. import roles as roles_module
 from .. import sampling
 from .._errors import InvalidInputError, OracleError, OutOfReachError
-from ..roles import Conventions, Role, WrongType
+from .._bounded import bounded_text
+from ..roles import AbsurdAnswer, Conventions, Role, WrongType
 from ..targets import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT
 from ..targets._worker import Overlong, Oversized
 from ._corpus import load_corpus, record_failures
@@ -166,7 +167,8 @@ class _Run:
             got = expected = _abridged(got)
         record = {"type": "check", "status": status, "check": check, "family": family,
                   "arguments": list(arguments), "got": jsonable(got), "expected": jsonable(expected),
-                  "provenance": provenance, "detail": detail, "seconds": seconds,
+                  "provenance": provenance, "detail": bounded_text(detail) if detail else detail,
+                  "seconds": seconds,
                   "elapsed": time.perf_counter() - self.started}
         self.stream.write(record)
         if status in FAILURE_STATUSES:
@@ -203,9 +205,14 @@ class _Run:
                                detail=f"returned {repr(result.value)[1:-1]}", seconds=result.seconds)
         try:
             value = role.normalise(result.value, conventions)
+        except AbsurdAnswer as error:       # an integer too large to be any answer: wrong
+            return self.record("wrong", "size", family, arguments, got=bounded_text(result.value, 200),
+                               expected="an integer of at most about 4010 digits",
+                               provenance="definition", detail=str(error), seconds=result.seconds)
         except WrongType as error:
-            return self.record("wrong-type", "type", family, arguments, got=repr(result.value)[:200],
-                               detail=str(error), seconds=result.seconds)
+            return self.record("wrong-type", "type", family, arguments,
+                               got=bounded_text(result.value, 200), detail=str(error),
+                               seconds=result.seconds)
         try:
             if self.memory is None:
                 verdict = role.judge(arguments, value, conventions, self.options.oracle_budget)
@@ -311,7 +318,8 @@ class _Run:
             if again != self.answers[arguments]:
                 self.record("nondeterministic", "reask", "reask", arguments, got=again,
                             expected=self.answers[arguments], provenance="the candidate itself",
-                            detail=f"asked twice: first {self.answers[arguments]!r:.80}, then {again!r:.80}",
+                            detail=f"asked twice: first {bounded_text(self.answers[arguments], 80)}, "
+                                   f"then {bounded_text(again, 80)}",
                             seconds=result.seconds)
 
     def relations(self) -> None:
@@ -377,7 +385,10 @@ class _Run:
         for record in wrong:
             if record["status"] != "wrong":
                 continue
-            found = first_wrong_prime(record["got"], record["expected"])
+            arguments = tuple(record["arguments"])     # the whole listings, not the records' cut
+            verdict = self.verdicts.get(arguments)
+            found = first_wrong_prime(self.answers.get(arguments, record["got"]),
+                                      verdict.expected if verdict is not None else record["expected"])
             if found is not None and (best is None or found[1] < best[0][1]):
                 best = (found, record)
         if best is None:
@@ -455,7 +466,8 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
     run = _Run(target, options, stream)
     stopped: BaseException | None = None
     try:
-        stream.write({"type": "start", "target": target.description, "kind": kind, "role": role.name,
+        stream.write({"type": "start", "target": bounded_text(target.description), "kind": kind,
+                      "role": role.name,
                       "profile": chosen.name, "seed": seed, "timeout": options.timeout,
                       "maximum": options.maximum, "isolated": target.isolated,
                       "conventions": vars(options.conventions), "elapsed": 0.0})

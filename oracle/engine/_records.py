@@ -35,6 +35,8 @@ import os
 import shutil
 from pathlib import Path
 
+from .._bounded import bounded_value
+
 __all__ = ["FAILURE_STATUSES", "RecordStream", "Records", "read_records", "summarise", "jsonable",
            "new_run_path", "point_to_latest", "VERDICTS", "SKIPS_KEEPING_COMPLETE"]
 
@@ -53,19 +55,13 @@ FAILURE_STATUSES = ("wrong", "wrong-type", "raised", "too-slow", "crashed", "bad
 
 
 def jsonable(value: object) -> object:
-    """A JSON-able form of a value: tuples become lists, anything unusual its repr."""
+    """A bounded JSON-able form of a value (:func:`oracle._bounded.bounded_value`): tuples become
+    lists, floats and unusual objects bounded text, long strings, lists and mappings are cut
+    and say so, an integer of more than 4200 digits is described by its number of digits."""
     kind = type(value)
-    if kind is int or kind is bool or kind is str:
+    if kind is bool or value is None or (kind is int and value.bit_length() <= 4096):
         return value
-    if value is None or isinstance(value, (bool, int, str)):
-        return value
-    if isinstance(value, float):
-        return repr(value)
-    if isinstance(value, (list, tuple)):
-        return [jsonable(item) for item in value]
-    if isinstance(value, dict):
-        return {str(key): jsonable(item) for key, item in value.items()}
-    return repr(value)
+    return bounded_value(value)
 
 
 class RecordStream:

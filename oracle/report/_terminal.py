@@ -25,7 +25,8 @@ __all__ = ["Progress", "summary_table"]
 #: Width of the table when the stream is not a terminal (a log has no width of its own).
 LOG_WIDTH = 120
 
-_VERDICT_STYLES = {"passed": "bold green", "failed": "bold red", "incomplete": "bold yellow"}
+_VERDICT_STYLES = {"passed": "bold green", "failed": "bold red", "incomplete": "bold yellow",
+                   "no verdict": "bold yellow"}
 
 
 def _is_terminal(stream: TextIO) -> bool:
