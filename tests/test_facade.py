@@ -6,6 +6,7 @@ reference libraries).
 
 import random
 
+import mpmath
 import pytest
 import sympy
 from hypothesis import given, settings, strategies as st
@@ -208,8 +209,15 @@ def test_out_of_reach_is_refused_with_the_proven_interval():
     with pytest.raises(OutOfReachError) as raised:
         oracle.pi(10**40)
     error = raised.value
-    if error.lower is not None:
-        assert error.lower < error.upper and error.theorems
+    # The oracle's interval must name its theorems and be at least as tight as Rosser and
+    # Schoenfeld's x/ln x < π(x) < 1.25506 x/ln x (1962, Illinois J. Math. 6, Thm 1 and Cor. 1;
+    # statement from memory), computed here with mpmath.
+    assert error.lower is not None and error.upper is not None and error.theorems
+    assert error.lower < error.upper
+    with mpmath.workdps(50):
+        x = mpmath.mpf(10) ** 40
+        assert error.lower >= int(x / mpmath.log(x))
+        assert error.upper <= int(mpmath.mpf("1.25506") * x / mpmath.log(x)) + 1
 
 
 def test_budget_is_respected_by_refusal():
