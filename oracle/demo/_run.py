@@ -63,7 +63,8 @@ def run_demo(report_dir: str | Path = "ntoracle-report", *, seed: int = DEMO_SEE
     print(f"\nreports: {folder / 'report.html'}, {folder / 'audit.json'} "
           f"(results as JSON lines: {folder}/<role>.jsonl); {time.perf_counter() - started:.1f} s",
           file=out)
-    problems = SCENARIO.discrepancies({s["role"]: s["passed"] for s in summaries})
+    problems = SCENARIO.discrepancies({s["role"]: s["passed"] for s in summaries},
+                                      {s["role"]: first_wrong_input(s) for s in summaries})
     if problems:
         print("\nThe audit did NOT match the scenario:", file=out)
         for problem in problems:
@@ -73,6 +74,16 @@ def run_demo(report_dir: str | Path = "ntoracle-report", *, seed: int = DEMO_SEE
     print(f"\nThe audit found exactly the {defects} documented defects and passed the "
           f"{len(summaries) - defects} sound routines.", file=out)
     return 0
+
+
+def first_wrong_input(summary: dict) -> int | None:
+    """The first wrong input the audit localised: the first divergence's input (its first
+    argument), or for primes_in the first prime missing or extra."""
+    divergence = summary.get("first_divergence") or {}
+    if "prime" in divergence:
+        return divergence["prime"]
+    where = divergence.get("input")
+    return where[0] if where else None
 
 
 def _print_role(out: TextIO, role: str, entry, summary: dict) -> None:
