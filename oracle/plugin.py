@@ -23,6 +23,10 @@ with the messages of the check items).  ``--ntoracle-hypothesis-profile
 ntoracle-ci`` (or the ini key of that name) loads the hypothesis settings
 profile of :mod:`oracle.strategies`; without it no hypothesis profile is loaded.
 
+Python targets are imported and called only in isolated worker processes (the pytest
+process, which judges, never imports them); ``--ntoracle-in-process`` (or the ini key
+``ntoracle_in_process = true``) calls them in the pytest process instead, trusting them.
+
 With no target and no suite file the plugin adds nothing and imports nothing
 of the library: every hook below imports what it needs when it runs.
 
@@ -44,6 +48,8 @@ _HELP_PROFILE = "profile of the checks: quick, ci, deep or exhaustive (default q
 _HELP_SEED = "seed of the sampled points (default: drawn at random and printed in the header)"
 _HELP_REPORT = "write the records of every check item and a summary.json into DIR"
 _HELP_HYPOTHESIS = "load this hypothesis settings profile of oracle.strategies (ntoracle-ci, ntoracle-dev)"
+_HELP_IN_PROCESS = ("call Python targets in the pytest process instead of an isolated worker: "
+                    "faster, but the target can then change the verdict; only for code you trust")
 _HELP_TARGETS_INI = "targets to check, one 'ROLE = package.module:function' a line"
 
 
@@ -58,7 +64,10 @@ def pytest_addoption(parser):
     group.addoption("--ntoracle-report", metavar="DIR", dest="ntoracle_report", help=_HELP_REPORT)
     group.addoption("--ntoracle-hypothesis-profile", metavar="NAME",
                     dest="ntoracle_hypothesis_profile", help=_HELP_HYPOTHESIS)
+    group.addoption("--ntoracle-in-process", action="store_true", dest="ntoracle_in_process",
+                    help=_HELP_IN_PROCESS)
     parser.addini("ntoracle_targets", _HELP_TARGETS_INI, type="linelist", default=[])
+    parser.addini("ntoracle_in_process", _HELP_IN_PROCESS, type="bool", default=False)
     parser.addini("ntoracle_profile", _HELP_PROFILE, default="")
     parser.addini("ntoracle_seed", _HELP_SEED, default="")
     parser.addini("ntoracle_hypothesis_profile", _HELP_HYPOTHESIS, default="")
@@ -78,7 +87,7 @@ def pytest_configure(config):
         _check_targets(settings)
         from .pytest_support._nodes import TargetPool
 
-        config.stash[_settings.POOL] = TargetPool()
+        config.stash[_settings.POOL] = TargetPool(in_process=settings.in_process)
         if settings.report_dir and not hasattr(config, "workerinput"):
             from .pytest_support._nodes import ReportWriter
 

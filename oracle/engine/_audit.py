@@ -57,7 +57,7 @@ from .._errors import InvalidInputError, OracleError, OutOfReachError
 from .._bounded import bounded_text
 from ..roles import AbsurdAnswer, Conventions, Role, WrongType
 from ..targets import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT
-from ..targets._worker import Overlong, Oversized
+from ..targets._worker import Overlong, Oversized, contains_oversized
 from ._corpus import load_corpus, record_failures
 from ._records import FAILURE_STATUSES, RecordStream, jsonable, summarise
 
@@ -200,9 +200,12 @@ class _Run:
         if result.status == RAISED:
             return self.record("raised", "exception", family, arguments, detail=result.error,
                                seconds=result.seconds)
-        if isinstance(result.value, (Oversized, Overlong)):
-            return self.record("wrong", "size", family, arguments, got=repr(result.value),
-                               detail=f"returned {repr(result.value)[1:-1]}", seconds=result.seconds)
+        if contains_oversized(result.value):
+            shown = (repr(result.value)[1:-1] if isinstance(result.value, (Oversized, Overlong))
+                     else bounded_text(result.value, 200))
+            return self.record("wrong", "size", family, arguments, got=shown,
+                               expected="an answer of ordinary size", provenance="definition",
+                               detail=f"returned {shown}", seconds=result.seconds)
         try:
             value = role.normalise(result.value, conventions)
         except AbsurdAnswer as error:       # an integer too large to be any answer: wrong

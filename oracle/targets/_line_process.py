@@ -47,7 +47,7 @@ __all__ = ["LineProcess", "WINDOW", "MAX_LINE", "MAX_OUTPUT"]
 #: Requests in flight at once.
 WINDOW = 64
 #: Bytes of one answer line beyond which the answer is a flood.
-MAX_LINE = 128 * 2**20
+MAX_LINE = 256 * 2**20
 #: Bytes a child may write to its stdout and stderr files (``RLIMIT_FSIZE``).
 MAX_OUTPUT = 64 * 2**20
 _STARTUP_GRACE = 3.0      # seconds a fresh process may take for its first answer, on top of the timeout

@@ -70,7 +70,7 @@ def decode_text_answer(role_name: str, line: bytes) -> tuple[bool, object, None]
 def _integer(token: bytes) -> int | Oversized:
     digits = token.strip().lstrip(b"+-")
     if len(digits) > MAX_DIGITS:
-        return Oversized(int(len(digits.lstrip(b"0")) * math.log2(10)))
+        return Oversized(len(digits.lstrip(b"0")), token.strip().startswith(b"-"))
     return int(token)
 
 
@@ -89,7 +89,7 @@ def decode_json_value(data: object) -> object:
     if not isinstance(data, dict):
         return data
     if "huge" in data:
-        return Oversized(int(data["huge"]))
+        return Oversized(int(data["huge"]), bool(data.get("negative")))
     if "overlong" in data:
         return Overlong(int(data["overlong"]), bool(data.get("endless")))
     if "float" in data:

@@ -22,7 +22,8 @@ per answer line: ``{"value": V, "seconds": S}`` or ``{"raised": "Type: message",
 
 Answers are bounded before they are encoded (:func:`bounded_answer`): an iterator is consumed
 up to :data:`MAX_ITEMS` items, an integer of more than :data:`MAX_DIGITS` decimal digits is
-replaced by its size, never converted whole (Python refuses int→str above 4300 digits).
+replaced by its size, never converted whole (Python refuses int→str above 4300 digits).  Only integers of more than ``MAX_DIGITS``
+digits are replaced, so every ordinary answer arrives whole.
 """
 
 from __future__ import annotations
@@ -37,11 +38,13 @@ import sys
 import time
 
 #: Items of an answer (a list, or an iterator consumed) beyond which it is "over-long".
-MAX_ITEMS = 1 << 23
+MAX_ITEMS = 1 << 24
 #: Decimal digits of an integer beyond which it is described by its size only.
-MAX_DIGITS = 4000
+MAX_DIGITS = 4200
 #: Bits of the smallest integer with more than MAX_DIGITS digits, give or take one digit.
 _HUGE_BITS = math.ceil(MAX_DIGITS / math.log10(2))
+#: Characters of a string answer kept (as oracle._bounded.TEXT_LIMIT).
+_MAX_TEXT = 2000
 #: Nesting of an answer beyond which it is described, not encoded.
 _MAX_DEPTH = 20
 
@@ -49,23 +52,29 @@ SPEC = re.compile(r"^[A-Za-z_][\w.]*:[A-Za-z_][\w.]*$")
 
 
 class Oversized:
-    """An integer answer too large to show: only its size (``bits``) is kept."""
+    """An integer answer too large to show: only its number of decimal digits is kept."""
 
-    def __init__(self, bits: int):
-        self.bits = bits
+    def __init__(self, digits: int, negative: bool = False):
+        self.digits, self.negative = digits, negative
 
-    @property
-    def digits(self) -> int:
-        return int(self.bits * math.log10(2)) + 1
+    @classmethod
+    def of(cls, value: int) -> "Oversized":
+        """The size of ``value``, from its bit length (exact: 2**(b-1) <= |value| < 2**b leaves
+        two digit counts, and one comparison with a power of ten decides)."""
+        bits = abs(value).bit_length()
+        digits = int((bits - 1) * math.log10(2)) + 1
+        if abs(value) >= 10 ** digits:
+            digits += 1
+        return cls(digits, value < 0)
 
     def __repr__(self) -> str:
-        return f"<an integer of about {self.digits} digits>"
+        return f"<{'a negative' if self.negative else 'an'} integer of {self.digits} digits>"
 
     def __eq__(self, other):
-        return isinstance(other, Oversized) and other.bits == self.bits
+        return isinstance(other, Oversized) and (other.digits, other.negative) == (self.digits, self.negative)
 
     def __hash__(self):
-        return hash(("Oversized", self.bits))
+        return hash(("Oversized", self.digits, self.negative))
 
 
 class Overlong:
@@ -89,11 +98,11 @@ def bounded_answer(value: object, depth: int = 0) -> object:
     """``value`` with iterators consumed (at most MAX_ITEMS + 1 items), huge integers replaced
     by :class:`Oversized` and collections of more than MAX_ITEMS items by :class:`Overlong`."""
     if type(value) is int:
-        return value if value.bit_length() <= _HUGE_BITS else Oversized(value.bit_length())
+        return value if value.bit_length() <= _HUGE_BITS else Oversized.of(value)
     if isinstance(value, bool) or value is None or isinstance(value, (float, str, bytes)):
         return value
     if isinstance(value, int):
-        return Oversized(value.bit_length()) if value.bit_length() > _HUGE_BITS else value
+        return Oversized.of(value) if value.bit_length() > _HUGE_BITS else value
     if depth > _MAX_DEPTH:
         return _Described(type(value).__name__, "nested too deeply")
     if hasattr(value, "__next__"):
@@ -109,6 +118,16 @@ def bounded_answer(value: object, depth: int = 0) -> object:
         base = next(kind for kind in (list, tuple, set, frozenset) if isinstance(value, kind))
         return base(bounded_answer(item, depth + 1) for item in value)
     return value
+
+
+def contains_oversized(value: object, depth: int = 0) -> bool:
+    """Whether a bounded answer holds an :class:`Oversized` or :class:`Overlong` anywhere."""
+    if isinstance(value, (Oversized, Overlong)):
+        return True
+    if depth > _MAX_DEPTH or not isinstance(value, (list, tuple, set, frozenset, dict)):
+        return False
+    items = list(value.items()) if isinstance(value, dict) else value
+    return any(contains_oversized(item, depth + 1) for item in items)
 
 
 class _Described:
@@ -137,13 +156,14 @@ def encode_value(value: object, depth: int = 0) -> object:
     if depth > _MAX_DEPTH:
         return {"object": type(value).__name__, "repr": "nested too deeply"}
     if isinstance(value, Oversized):
-        return {"huge": value.bits}
+        return {"huge": value.digits, "negative": value.negative}
     if isinstance(value, Overlong):
         return {"overlong": value.items, "endless": value.endless}
     if isinstance(value, float):
         return {"float": repr(value)}
-    if isinstance(value, str):
-        return {"str": value[:1000]}
+    if isinstance(value, str):      # cut as oracle._bounded cuts, saying how long it was
+        return {"str": value if len(value) <= _MAX_TEXT else
+                f"{value[:_MAX_TEXT]}... ({len(value)} characters)"}
     if isinstance(value, dict):
         return {"dict": [[encode_value(k, depth + 1), encode_value(v, depth + 1)] for k, v in value.items()]}
     if type(value).__name__ == "bool_":
