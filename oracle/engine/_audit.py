@@ -55,16 +55,20 @@ from .. import sampling
 from .._errors import InvalidInputError, OracleError, OutOfReachError
 from ..roles import Conventions, Role, WrongType
 from ..targets import CRASHED, OK, RAISED, TIMEOUT
+from . import _reach, _timeouts
 from ._corpus import load_corpus, record_failures
-from ._records import FAILURE_STATUSES, RecordStream, jsonable, summarise
+from ._records import RecordStream, failure_statuses, jsonable, summarise
+from ._speed import SpeedModel
 
 __all__ = ["AuditOptions", "AuditInterrupted", "run_audit"]
 
 BATCH = 64
 #: Seconds per point (call and verdict) above which points are asked one at a time.
 SLOW_CALL = 0.05
-#: Timeouts after which larger points are skipped.
+#: Hangs after which larger points are skipped.
 TIMEOUTS_BEFORE_SKIPPING = 2
+#: Why points at least as large as a call too slow are not asked (the limit of reach).
+SLOW_SKIP = "beyond the candidate's speed (too slow)"
 #: Crashes after which the rest of the run is skipped.
 CRASHES_BEFORE_STOPPING = 5
 #: Steps of bisection at most (2**64 needs 64).
@@ -118,6 +122,7 @@ class AuditOptions:
     on_record: Callable[[dict], None] | None = None    # called with every record written
     stop_after: int | None = None       # findings before the early stop (None: the profile's)
     early_stop: bool = True             # False: ask every point however many checks fail
+    slow_fails: bool = False            # True: a call too slow at the top of its reach is a failure
 
 
 class AuditInterrupted(KeyboardInterrupt):
@@ -141,10 +146,15 @@ class _Run:
         self.families: dict[tuple, str] = {}
         self.verdicts: dict[tuple, object] = {}
         self.failures: list[dict] = []
-        self.timed_out_sizes: list[int] = []
+        self.timed_out_sizes: list[int] = []      # hung calls inside the domain
+        self.slow_sizes: list[int] = []           # calls too slow (the limit of reach)
+        self.too_slow: list[dict] = []
         self.crashes = 0
-        self.faults = 0             # timeouts and crashes
+        self.faults = 0             # hangs and crashes
+        self.speed = SpeedModel()
+        self.failing = failure_statuses(options.slow_fails)
         self.skipped: dict[str, list[int]] = {}
+        self.family_stops: dict[str, str] = {}     # the first reason a family's point was skipped
         self.time_budget = (options.time_budget if options.time_budget is not None
                             else self.profile.time_budget)
         self.enough_findings = (None if not options.early_stop else options.stop_after
@@ -154,6 +164,10 @@ class _Run:
 
     def elapsed(self) -> float:
         return round(time.perf_counter() - self.started, 6)
+
+    def remaining(self) -> float:
+        """Seconds left of the time budget."""
+        return self.time_budget - (time.perf_counter() - self.budget_started)
 
     # -- one check --------------------------------------------------------- #
 
@@ -166,18 +180,57 @@ class _Run:
                   "provenance": provenance, "detail": detail, "seconds": seconds,
                   "elapsed": time.perf_counter() - self.started}
         self.stream.write(record)
-        if status in FAILURE_STATUSES:
+        if status in self.failing:
             self.failures.append(record)
+        if status == _timeouts.TOO_SLOW:
+            self.too_slow.append(record)
         return record
+
+    def timed_out(self, family: str, arguments: tuple, result, invalid: bool):
+        """A timeout classified (:mod:`oracle.engine._timeouts`): the record of a hang or of a
+        call too slow, or the result of a longer retry that answered (to be judged)."""
+        magnitude = self.role.magnitude(arguments)
+        timeout = self.options.timeout
+        reason = _timeouts.obviously_hung(magnitude, self.speed, timeout, invalid=invalid)
+        retried = None
+        if reason is None:
+            allowed = min(_timeouts.RETRY_FACTOR * timeout, self.remaining())
+            if hasattr(self.target, "timeout") and allowed > timeout:
+                retried = allowed
+                again = self._retry(arguments, allowed)
+                if again.status != TIMEOUT:
+                    return again
+            status, reason = _timeouts.after_retry(magnitude, self.speed, timeout, retried)
+        else:
+            status = _timeouts.HUNG
+        if status == _timeouts.HUNG:
+            self.faults += 1
+            if not invalid:         # a hang outside the domain says nothing about larger inputs
+                self.timed_out_sizes.append(magnitude)
+        else:
+            self.slow_sizes.append(magnitude)
+        return self.record(status, "timeout", family, arguments, detail=reason,
+                           seconds=result.seconds)
+
+    def _retry(self, arguments: tuple, seconds: float):
+        """One call with the per-call limit raised to ``seconds``."""
+        previous = self.target.timeout
+        self.target.timeout = seconds
+        try:
+            (result,) = self.target.call_many([arguments])
+        finally:
+            self.target.timeout = previous
+        return result
 
     def judge(self, family: str, arguments: tuple, result, *, invalid: bool = False) -> dict:
         role, conventions = self.role, self.options.conventions
         if result.status == TIMEOUT:
-            self.faults += 1
-            if not invalid:         # a hang outside the domain says nothing about larger inputs
-                self.timed_out_sizes.append(role.magnitude(arguments))
-            return self.record("too-slow", "timeout", family, arguments, detail=result.error,
-                               seconds=result.seconds)
+            classified = self.timed_out(family, arguments, result, invalid)
+            if isinstance(classified, dict):
+                return classified
+            result = classified             # a longer retry answered: judge its answer
+        if result.status == OK and not invalid:
+            self.speed.observe(role.magnitude(arguments), result.seconds)
         if result.status == CRASHED:
             self.faults += 1
             self.crashes += 1
@@ -236,6 +289,8 @@ class _Run:
             return "above the declared domain (--max)"
         if len(self.timed_out_sizes) >= TIMEOUTS_BEFORE_SKIPPING and size >= min(self.timed_out_sizes):
             return "at least as large as inputs that timed out"
+        if self.slow_sizes and size >= min(self.slow_sizes):
+            return SLOW_SKIP
         if self.crashes >= CRASHES_BEFORE_STOPPING:
             return "the candidate crashed too often"
         if self.failed_enough():
@@ -256,6 +311,7 @@ class _Run:
                     batch.append((family, arguments))
                 else:
                     self.skipped.setdefault(reason, []).append(self.role.magnitude(arguments))
+                    self.family_stops.setdefault(family, reason)
             start += size
             began = time.perf_counter()
             results = self.target.call_many([a for _, a in batch]) if batch else []
@@ -273,7 +329,7 @@ class _Run:
         (one hang there is finding enough, and each costs a whole timeout)."""
         for index, point in enumerate(points):
             self.ask([point], invalid=True)
-            if self.failures and self.failures[-1]["status"] == "too-slow" \
+            if self.failures and self.failures[-1]["status"] == _timeouts.HUNG \
                     and self.failures[-1]["family"] == "invalid-input":
                 for _, arguments in points[index + 1:]:
                     self.skipped.setdefault("outside the domain, after a hang there",
@@ -284,7 +340,7 @@ class _Run:
         """Ask a sample of points again: half of it, where there are enough, from the families
         on which a randomised test errs most often (its liars are many there)."""
         rng = random.Random(f"{seed}:reask")
-        asked = sorted(self.answers)
+        asked = sorted(a for a in self.answers if self.families.get(a) not in _reach.CLIMB_FAMILIES)
         fragile = [arguments for arguments in asked if self.families.get(arguments) in FRAGILE_FAMILIES]
         chosen = rng.sample(fragile, min(self.profile.reask // 2, len(fragile)))
         others = sorted(set(asked) - set(chosen))
@@ -379,6 +435,14 @@ class _Run:
         return {"kind": f"first {kind} prime", "prime": prime, "input": record["arguments"],
                 "provenance": record["provenance"], "detail": record["detail"]}
 
+    def write_reach(self, samples) -> None:
+        """A ``reach`` record per sampled family: why its largest point was its largest."""
+        ceiling = self.profile.ceilings[self.role.name]
+        for family in dict.fromkeys(s.family for s in samples):
+            reason = self.family_stops.get(family, f"the profile's ceiling ({ceiling})")
+            self.stream.write({"type": "reach", "family": family, "stopped": reason,
+                               "elapsed": self.elapsed()})
+
     def write_skipped(self) -> None:
         for reason, sizes in self.skipped.items():
             self.stream.write({"type": "skipped", "reason": reason, "count": len(sizes),
@@ -437,7 +501,8 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
         stream.write({"type": "start", "target": target.description, "kind": kind, "role": role.name,
                       "profile": chosen.name, "seed": seed, "timeout": options.timeout,
                       "maximum": options.maximum, "isolated": target.isolated,
-                      "conventions": vars(options.conventions), "elapsed": 0.0})
+                      "conventions": vars(options.conventions), "slow_fails": options.slow_fails,
+                      "elapsed": 0.0})
         if only is not None:
             run.enough_findings = None          # a replay asks every point it was given
             valid, invalid = _corpus_points([{"role": role.name, "arguments": list(a),
@@ -458,6 +523,8 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
             run.ask([(s.family, s.arguments) for s in samples if s.arguments not in replayed])
             own_invalid = [a for a in role.invalid_inputs if a not in {p for _, p in corpus_invalid}]
             run.ask_invalid([("invalid-input", arguments) for arguments in own_invalid])
+            run.write_reach(samples)
+            _reach.climb(run, seed)
             run.reask(seed)
             run.relations()
         found = run.divergence()
@@ -478,7 +545,7 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
     summary = summarise(stream.records)
     if options.corpus and only is None:
         calls = [r for r in stream.records if r.get("type") == "check"   # all on record, even
-                 and r["status"] in FAILURE_STATUSES and r["family"] != "identity"]  # if cut short
+                 and r["status"] in run.failing and r["family"] != "identity"]  # if cut short
         summary["corpus_added"] = record_failures(options.corpus, calls, target=target.description,
                                                   role=role.name, seed=seed, profile=chosen.name,
                                                   kind=kind)
