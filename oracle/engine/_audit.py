@@ -165,6 +165,10 @@ class _Run:
     def elapsed(self) -> float:
         return round(time.perf_counter() - self.started, 6)
 
+    def call_timeout(self) -> float:
+        """The per-call limit in force: the target's own where it has one."""
+        return getattr(self.target, "timeout", None) or self.options.timeout
+
     def remaining(self) -> float:
         """Seconds left of the time budget."""
         return self.time_budget - (time.perf_counter() - self.budget_started)
@@ -190,10 +194,13 @@ class _Run:
         """A timeout classified (:mod:`oracle.engine._timeouts`): the record of a hang or of a
         call too slow, or the result of a longer retry that answered (to be judged)."""
         magnitude = self.role.magnitude(arguments)
-        timeout = self.options.timeout
+        timeout = self.call_timeout()
         reason = _timeouts.obviously_hung(magnitude, self.speed, timeout, invalid=invalid)
         retried = None
-        if reason is None:
+        if reason is None and self.slow_sizes and magnitude >= min(self.slow_sizes):
+            status = _timeouts.TOO_SLOW           # no retry: a smaller call was too slow already
+            reason = f"no answer within {timeout:g} s, like the call at {min(self.slow_sizes)}"
+        elif reason is None:
             allowed = min(_timeouts.RETRY_FACTOR * timeout, self.remaining())
             if hasattr(self.target, "timeout") and allowed > timeout:
                 retried = allowed

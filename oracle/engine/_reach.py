@@ -79,7 +79,7 @@ def _steps(role_name: str, start: int, rng: random.Random) -> list[tuple[int, st
     points = sorted(x for x in tables.values(TABLE_FUNCTIONS[role_name]) if x > start + 1)
     steps = [(b + 1, CLIMB_TABLES, [b + d for d in OFFSETS]) for b in points]
     top = points[-1] if points else start
-    for j in range(max(start, 1).bit_length(), top.bit_length()):
+    for j in range(max(start, 1).bit_length() - 1, top.bit_length() - 1):
         low = max(1 << j, start + 1)
         if low < 1 << (j + 1):
             x = rng.randrange(low, 1 << (j + 1))
@@ -97,12 +97,19 @@ def climb(run, seed: int) -> None:
         return
     stopped: dict[str, tuple[str, int | None]] = {}
     largest: dict[str, int] = {}
-    timeout = run.options.timeout
+    timeout = run.call_timeout()
     budget = run.options.oracle_budget
     steps = _steps(role.name, start, random.Random(f"{seed}:climb"))
     for size, family, inputs in steps:
         if family in stopped:
             continue
+        maximum = run.options.maximum
+        inputs = [x for x in inputs if x >= role.minimum and (maximum is None or x <= maximum)]
+        if not inputs:
+            for name in CLIMB_FAMILIES:
+                stopped.setdefault(name, (DECLARED_DOMAIN, size))
+            break
+        size = max(inputs)
         share = RANDOM_SHARE if family == CLIMB_RANDOM else 1.0
         reason = _why_not(run, size, inputs, timeout, budget, share)
         if reason is not None:
@@ -112,7 +119,7 @@ def climb(run, seed: int) -> None:
                 break
             continue
         before = (len(run.too_slow), len(run.failures), run.faults)
-        run.ask([(family, (x,)) for x in inputs if x >= role.minimum])
+        run.ask([(family, (x,)) for x in inputs])
         largest[family] = size
         if len(run.too_slow) > before[0]:
             reason = CANDIDATE_SPEED
@@ -134,8 +141,6 @@ def _why_not(run, size: int, inputs: list[int], timeout: float, budget: float,
     """Why one climbing step is not to be asked, or None."""
     if run.failures or run.failed_enough():
         return AFTER_FAILURES
-    if run.options.maximum is not None and max(inputs) > run.options.maximum:
-        return DECLARED_DOMAIN
     blocked = run.runnable((max(inputs),))
     if blocked is not None:
         return CANDIDATE_SPEED if "timed out" in blocked or "speed" in blocked else AFTER_FAILURES
