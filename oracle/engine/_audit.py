@@ -11,9 +11,19 @@ The order of work:
    cheap, so most defects show within the first second -- in batches, then the
    inputs outside the domain (where a hang costs a whole timeout);
 2. each answer is normalised and judged by the role (:mod:`oracle.roles`);
-   faults -- an exception, a wrong type, a timeout ("too slow"), a dead
-   process -- are findings, never errors of the harness;
-3. a sample of answers is asked again: a different answer is "nondeterministic";
+   faults -- an exception, a wrong type, a hang, a dead process -- are
+   findings, never errors of the harness.  A timeout is classified
+   (:mod:`oracle.engine._timeouts`, after one retry with a longer limit where
+   that can decide): "hung" is a finding; "too slow" at the top of the
+   candidate's reach, after calls that grew slower, is not (unless
+   ``AuditOptions.slow_fails``, CLI ``--slow-fails``): it ends the reach, and
+   larger points are skipped as beyond the candidate's speed;
+   then, for counting roles, the climb above the sampled points
+   (:mod:`oracle.engine._reach`): table points ± 1 and random points per
+   octave, as high as the candidate's speed, the oracle's cost and the time
+   budget allow; each family's reach is recorded (``reach`` records);
+3. a sample of the sampled answers is asked again: a different answer is
+   "nondeterministic";
 4. the role's identities across answers (monotone counts, short-interval
    differences beyond exact reach, p_n increasing);
 5. the first divergence: for counting roles, bisection between the largest
@@ -28,7 +38,8 @@ The order of work:
    summary so far; another exception is re-raised after the same saving.
 
 Points above the declared domain (``maximum``), points left when the time
-budget is spent, points at least as large as two that timed out, and -- once
+budget is spent, points at least as large as two that hung or one that was too
+slow, and -- once
 the candidate has clearly failed (the profile's ``enough_findings``) -- the
 points not yet asked are skipped and counted as skipped, never as passed.
 After enough findings only the localisation (step 5) is still done.  The early
@@ -40,7 +51,8 @@ The corpus replay has its own allowance, equal to the time budget; the budget
 clock of the sampled points starts after it, so a large corpus never eats the
 sampled points' time.  The time budget then covers every later phase, the
 localisation included.  A run with points skipped for time, the early stop,
-crashes or timeouts is reported incomplete (:func:`oracle.engine.summarise`).
+crashes or hangs is reported incomplete (:func:`oracle.engine.summarise`);
+points beyond the candidate's speed leave it complete (they are its reach).
 """
 
 from __future__ import annotations

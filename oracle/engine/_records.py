@@ -22,9 +22,13 @@ counts it (``garbled_lines`` of the summary); it never stops early.
 stream has no ``end`` record or no check was completed, else ``passed``;
 ``passed`` is true only for the verdict ``passed``.  ``complete`` is false
 whenever points were not run for the time budget, the early stop, crashes,
-timeouts, an interruption or a missing ``end`` (skips above the declared
-domain and out of the oracle's reach are reported, but do not make a run
-incomplete); ``not_run`` counts the points that made it so.
+hangs, an interruption or a missing ``end`` (skips above the declared
+domain, out of the oracle's reach and beyond the candidate's speed are
+reported, but do not make a run incomplete); ``not_run`` counts the points
+that made it so.  ``too_slow`` counts the calls too slow (failures only when
+the start record says ``slow_fails``); ``reach`` gives, per family, the
+largest input checked and why it went no higher (:func:`reach`).  A ``reach``
+record names a family and the reason it stopped.
 """
 
 from __future__ import annotations
