@@ -188,8 +188,8 @@ def readable_size(n: int) -> str:
                 if exponent > 1 and abs(offset) <= 2:
                     return f"{base}^{exponent}" + ("" if offset == 0 else
                                                    f" {'+' if offset > 0 else '-'} {abs(offset)}")
-    if n.bit_length() > 4000:                # int -> str is refused above 4300 digits
-        return f"about 2^{n.bit_length()}"
+    if n.bit_length() > 1000:                # no float for it; int -> str refused above 4300 digits
+        return f"about 2^{n.bit_length() - 1}"
     return str(n) if n < 10**6 else f"{n} (≈ {n:.2e})"
 
 
