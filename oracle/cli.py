@@ -141,6 +141,9 @@ def _add_audit_parser(commands) -> None:
                        help="stop asking after N findings (default: the profile's enough_findings)")
     audit.add_argument("--no-early-stop", action="store_true",
                        help="ask every point however many checks fail")
+    audit.add_argument("--slow-fails", action="store_true",
+                       help="a call too slow at the top of the candidate's reach is a failure "
+                            "(default: it ends the reach, and a hang is still a failure)")
     audit.add_argument("--corpus", metavar="FILE", default=os.path.join(".ntoracle", "regressions.yaml"),
                        help="regression corpus, replayed first and extended with new failures "
                             "(default .ntoracle/regressions.yaml)")
@@ -360,7 +363,8 @@ def _audit(arguments) -> int:
                                   maximum=maximum, conventions=_conventions(arguments),
                                   corpus=None if arguments.no_corpus else arguments.corpus,
                                   stream=arguments.stream or engine.new_run_path(".ntoracle"),
-                                  stop_after=stop_after, early_stop=not arguments.no_early_stop)
+                                  stop_after=stop_after, early_stop=not arguments.no_early_stop,
+                                  slow_fails=arguments.slow_fails)
     from . import report
 
     interrupted = False

@@ -11,10 +11,20 @@ The order of work:
    cheap, so most defects show within the first second -- in batches, then the
    inputs outside the domain (where a hang costs a whole timeout);
 2. each answer is normalised and judged by the role (:mod:`oracle.roles`);
-   faults -- an exception, a wrong type, a timeout ("too slow"), a dead
-   process, a broken protocol, a huge integer or an endless iterator -- are
-   findings, never errors of the harness;
-3. a sample of answers is asked again: a different answer is "nondeterministic";
+   faults -- an exception, a wrong type, a hang, a dead process, a broken
+   protocol, a huge integer or an endless iterator -- are findings, never
+   errors of the harness.  A timeout is classified
+   (:mod:`oracle.engine._timeouts`, after one retry with a longer limit where
+   that can decide): "hung" is a finding; "too slow" at the top of the
+   candidate's reach, after calls that grew slower, is not (unless
+   ``AuditOptions.slow_fails``, CLI ``--slow-fails``): it ends the reach, and
+   larger points are skipped as beyond the candidate's speed;
+   then, for counting roles, the climb above the sampled points
+   (:mod:`oracle.engine._reach`): table points ± 1 and random points per
+   octave, as high as the candidate's speed, the oracle's cost and the time
+   budget allow; each family's reach is recorded (``reach`` records);
+3. a sample of the sampled answers is asked again: a different answer is
+   "nondeterministic";
 4. the role's identities across answers (monotone counts, short-interval
    differences beyond exact reach, p_n increasing);
 5. the first divergence: for counting roles, bisection between the largest
@@ -29,7 +39,8 @@ The order of work:
    summary so far; another exception is re-raised after the same saving.
 
 Points above the declared domain (``maximum``), points left when the time
-budget is spent, points at least as large as two that timed out, and -- once
+budget is spent, points at least as large as two that hung or one that was too
+slow, and -- once
 the candidate has clearly failed (the profile's ``enough_findings``) -- the
 points not yet asked are skipped and counted as skipped, never as passed.
 After enough findings only the localisation (step 5) is still done.  The early
@@ -41,7 +52,8 @@ The corpus replay has its own allowance, equal to the time budget; the budget
 clock of the sampled points starts after it, so a large corpus never eats the
 sampled points' time.  The time budget then covers every later phase, the
 localisation included.  A run with points skipped for time, the early stop,
-crashes or timeouts is reported incomplete (:func:`oracle.engine.summarise`).
+crashes or hangs is reported incomplete (:func:`oracle.engine.summarise`);
+points beyond the candidate's speed leave it complete (they are its reach).
 """
 
 from __future__ import annotations
@@ -58,16 +70,20 @@ from .._bounded import bounded_text
 from ..roles import AbsurdAnswer, Conventions, Role, WrongType
 from ..targets import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT
 from ..targets._worker import Overlong, Oversized, contains_oversized
+from . import _reach, _timeouts
 from ._corpus import load_corpus, record_failures
-from ._records import FAILURE_STATUSES, RecordStream, jsonable, summarise
+from ._records import RecordStream, failure_statuses, jsonable, summarise
+from ._speed import SpeedModel
 
 __all__ = ["AuditOptions", "AuditInterrupted", "run_audit"]
 
 BATCH = 64
 #: Seconds per point (call and verdict) above which points are asked one at a time.
 SLOW_CALL = 0.05
-#: Timeouts after which larger points are skipped.
+#: Hangs after which larger points are skipped.
 TIMEOUTS_BEFORE_SKIPPING = 2
+#: Why points at least as large as a call too slow are not asked (the limit of reach).
+SLOW_SKIP = "beyond the candidate's speed (too slow)"
 #: Crashes after which the rest of the run is skipped.
 CRASHES_BEFORE_STOPPING = 5
 #: Steps of bisection at most (2**64 needs 64).
@@ -121,6 +137,7 @@ class AuditOptions:
     on_record: Callable[[dict], None] | None = None    # called with every record written
     stop_after: int | None = None       # findings before the early stop (None: the profile's)
     early_stop: bool = True             # False: ask every point however many checks fail
+    slow_fails: bool = False            # True: a call too slow at the top of its reach is a failure
 
 
 class AuditInterrupted(KeyboardInterrupt):
@@ -144,10 +161,15 @@ class _Run:
         self.families: dict[tuple, str] = {}
         self.verdicts: dict[tuple, object] = {}
         self.failures: list[dict] = []
-        self.timed_out_sizes: list[int] = []
+        self.timed_out_sizes: list[int] = []      # hung calls inside the domain
+        self.slow_sizes: list[int] = []           # calls too slow (the limit of reach)
+        self.too_slow: list[dict] = []
         self.crashes = 0
-        self.faults = 0             # timeouts and crashes
+        self.faults = 0             # hangs and crashes
+        self.speed = SpeedModel()
+        self.failing = failure_statuses(options.slow_fails)
         self.skipped: dict[str, list[int]] = {}
+        self.family_stops: dict[str, str] = {}     # the first reason a family's point was skipped
         self.time_budget = (options.time_budget if options.time_budget is not None
                             else self.profile.time_budget)
         self.enough_findings = (None if not options.early_stop else options.stop_after
@@ -158,6 +180,14 @@ class _Run:
 
     def elapsed(self) -> float:
         return round(time.perf_counter() - self.started, 6)
+
+    def call_timeout(self) -> float:
+        """The per-call limit in force: the target's own where it has one."""
+        return getattr(self.target, "timeout", None) or self.options.timeout
+
+    def remaining(self) -> float:
+        """Seconds left of the time budget."""
+        return self.time_budget - (time.perf_counter() - self.budget_started)
 
     # -- one check --------------------------------------------------------- #
 
@@ -171,18 +201,60 @@ class _Run:
                   "seconds": seconds,
                   "elapsed": time.perf_counter() - self.started}
         self.stream.write(record)
-        if status in FAILURE_STATUSES:
+        if status in self.failing:
             self.failures.append(record)
+        if status == _timeouts.TOO_SLOW:
+            self.too_slow.append(record)
         return record
+
+    def timed_out(self, family: str, arguments: tuple, result, invalid: bool):
+        """A timeout classified (:mod:`oracle.engine._timeouts`): the record of a hang or of a
+        call too slow, or the result of a longer retry that answered (to be judged)."""
+        magnitude = self.role.magnitude(arguments)
+        timeout = self.call_timeout()
+        reason = _timeouts.obviously_hung(magnitude, self.speed, timeout, invalid=invalid)
+        retried = None
+        if reason is None and self.slow_sizes and magnitude >= min(self.slow_sizes):
+            status = _timeouts.TOO_SLOW           # no retry: a smaller call was too slow already
+            reason = f"no answer within {timeout:g} s, like the call at {min(self.slow_sizes)}"
+        elif reason is None:
+            allowed = min(_timeouts.RETRY_FACTOR * timeout, self.remaining())
+            if hasattr(self.target, "timeout") and allowed > timeout:
+                retried = allowed
+                again = self._retry(arguments, allowed)
+                if again.status != TIMEOUT:
+                    return again
+            status, reason = _timeouts.after_retry(magnitude, self.speed, timeout, retried)
+        else:
+            status = _timeouts.HUNG
+        if status == _timeouts.HUNG:
+            self.faults += 1
+            if not invalid:         # a hang outside the domain says nothing about larger inputs
+                self.timed_out_sizes.append(magnitude)
+        else:
+            self.slow_sizes.append(magnitude)
+        return self.record(status, "timeout", family, arguments, detail=reason,
+                           seconds=result.seconds)
+
+    def _retry(self, arguments: tuple, seconds: float):
+        """One call with the per-call limit raised to ``seconds``."""
+        previous = self.target.timeout
+        self.target.timeout = seconds
+        try:
+            (result,) = self.target.call_many([arguments])
+        finally:
+            self.target.timeout = previous
+        return result
 
     def judge(self, family: str, arguments: tuple, result, *, invalid: bool = False) -> dict:
         role, conventions = self.role, self.options.conventions
         if result.status == TIMEOUT:
-            self.faults += 1
-            if not invalid:         # a hang outside the domain says nothing about larger inputs
-                self.timed_out_sizes.append(role.magnitude(arguments))
-            return self.record("too-slow", "timeout", family, arguments, detail=result.error,
-                               seconds=result.seconds)
+            classified = self.timed_out(family, arguments, result, invalid)
+            if isinstance(classified, dict):
+                return classified
+            result = classified             # a longer retry answered: judge its answer
+        if result.status == OK and not invalid:
+            self.speed.observe(role.magnitude(arguments), result.seconds)
         if result.status in (CRASHED, BAD_OUTPUT):
             self.faults += 1
             self.crashes += 1
@@ -252,6 +324,8 @@ class _Run:
             return "above the declared domain (--max)"
         if len(self.timed_out_sizes) >= TIMEOUTS_BEFORE_SKIPPING and size >= min(self.timed_out_sizes):
             return "at least as large as inputs that timed out"
+        if self.slow_sizes and size >= min(self.slow_sizes):
+            return SLOW_SKIP
         if self.crashes >= CRASHES_BEFORE_STOPPING:
             return "the candidate crashed too often"
         if self.failed_enough():
@@ -273,6 +347,7 @@ class _Run:
                     batch.append((family, arguments))
                 else:
                     self.skipped.setdefault(reason, []).append(self.role.magnitude(arguments))
+                    self.family_stops.setdefault(family, reason)
             start += size
             began = time.perf_counter()
             results = self.target.call_many([a for _, a in batch], stop_on_fault=True) if batch else []
@@ -292,7 +367,7 @@ class _Run:
         (one hang there is finding enough, and each costs a whole timeout)."""
         for index, point in enumerate(points):
             self.ask([point], invalid=True)
-            if self.failures and self.failures[-1]["status"] == "too-slow" \
+            if self.failures and self.failures[-1]["status"] == _timeouts.HUNG \
                     and self.failures[-1]["family"] == "invalid-input":
                 for _, arguments in points[index + 1:]:
                     self.skipped.setdefault("outside the domain, after a hang there",
@@ -303,7 +378,7 @@ class _Run:
         """Ask a sample of points again: half of it, where there are enough, from the families
         on which a randomised test errs most often (its liars are many there)."""
         rng = random.Random(f"{seed}:reask")
-        asked = sorted(self.answers)
+        asked = sorted(a for a in self.answers if self.families.get(a) not in _reach.CLIMB_FAMILIES)
         fragile = [arguments for arguments in asked if self.families.get(arguments) in FRAGILE_FAMILIES]
         chosen = rng.sample(fragile, min(self.profile.reask // 2, len(fragile)))
         others = sorted(set(asked) - set(chosen))
@@ -414,6 +489,14 @@ class _Run:
                 + (f" and {len(changed) - 5} more" if len(changed) > 5 else "")
                 + "; every verdict of this run is void (run it isolated, the default)"))
 
+    def write_reach(self, samples) -> None:
+        """A ``reach`` record per sampled family: why its largest point was its largest."""
+        ceiling = self.profile.ceilings[self.role.name]
+        for family in dict.fromkeys(s.family for s in samples):
+            reason = self.family_stops.get(family, f"the profile's ceiling ({ceiling})")
+            self.stream.write({"type": "reach", "family": family, "stopped": reason,
+                               "elapsed": self.elapsed()})
+
     def write_skipped(self) -> None:
         for reason, sizes in self.skipped.items():
             self.stream.write({"type": "skipped", "reason": reason, "count": len(sizes),
@@ -473,7 +556,8 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
                       "role": role.name,
                       "profile": chosen.name, "seed": seed, "timeout": options.timeout,
                       "maximum": options.maximum, "isolated": target.isolated,
-                      "conventions": vars(options.conventions), "elapsed": 0.0})
+                      "conventions": vars(options.conventions), "slow_fails": options.slow_fails,
+                      "elapsed": 0.0})
         if only is not None:
             run.enough_findings = None          # a replay asks every point it was given
             valid, invalid = _corpus_points([{"role": role.name, "arguments": list(a),
@@ -494,6 +578,8 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
             run.ask([(s.family, s.arguments) for s in samples if s.arguments not in replayed])
             own_invalid = [a for a in role.invalid_inputs if a not in {p for _, p in corpus_invalid}]
             run.ask_invalid([("invalid-input", arguments) for arguments in own_invalid])
+            run.write_reach(samples)
+            _reach.climb(run, seed)
             run.reask(seed)
             run.relations()
         found = run.divergence()
@@ -517,7 +603,7 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
         summary.update(passed=False, verdict="failed", tampered=run.tampered)
     if options.corpus and only is None:
         calls = [r for r in stream.records if r.get("type") == "check"   # all on record, even
-                 and r["status"] in FAILURE_STATUSES and r["family"] not in ("identity", "harness")]  # if cut short
+                 and r["status"] in run.failing and r["family"] not in ("identity", "harness")]
         summary["corpus_added"] = record_failures(options.corpus, calls, target=target.description,
                                                   role=role.name, seed=seed, profile=chosen.name,
                                                   kind=kind)

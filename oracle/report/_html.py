@@ -154,9 +154,28 @@ def _run_section(index: int, summary: dict, records: list[dict]) -> list[str]:
               f"<pre><code>{_text(reproduce_command(start))}</code></pre>"]
     if summary["first_divergence"]:
         parts += ["<h3>First divergence</h3>", _divergence_table(summary["first_divergence"])]
+    parts += _reach_table(summary)
     parts += _figures(summary, records)
     parts += _failure_table(summary["failures"])
     parts.append("</section>")
+    return parts
+
+
+def _reach_table(summary: dict) -> list[str]:
+    """How far each family of inputs was checked, and why it went no higher."""
+    from ._terminal import readable_size
+
+    reach = summary.get("reach") or {}
+    rows = sorted(((entry.get("largest"), family, entry.get("stopped") or "")
+                   for family, entry in reach.items() if entry.get("largest") is not None),
+                  key=lambda row: -row[0])
+    if not rows:
+        return []
+    parts = ["<h3>Reach</h3>", "<table><thead><tr><th>family</th><th>checked up to</th>"
+             "<th>stopped by</th></tr></thead><tbody>"]
+    parts += [f"<tr><td>{_text(family)}</td><td>{_text(readable_size(largest))}</td>"
+              f"<td>{_text(stopped)}</td></tr>" for largest, family, stopped in rows]
+    parts.append("</tbody></table>")
     return parts
 
 
