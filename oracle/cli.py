@@ -94,7 +94,9 @@ def _add_target_options(command) -> None:
                          help="what the target computes: " + ", ".join(ROLE_NAMES)
                               + " (inferred from the function name when unambiguous)")
     command.add_argument("--timeout", type=seconds_option("--timeout"), default=None, metavar="SECONDS",
-                         help="per-call limit; a slower call is a 'too slow' finding")
+                         help="per-call limit; a call past it is 'hung' (a finding) or, at the top of the "
+                              "candidate's reach after calls that grew slower, 'too slow' (the end of "
+                              "its reach; a finding only with --slow-fails)")
     command.add_argument("--in-process", action="store_true",
                          help="call a Python target in this process: faster, but it then shares "
                               "the harness's memory and can change the verdict; only for code "
@@ -555,6 +557,10 @@ def _print_summary(summary: dict, listed: int = 20) -> None:
               + (f" [{divergence['provenance']}]" if divergence.get("provenance") else ""))
     for reason, count in summary["skipped"].items():
         print(f"skipped {count} point(s): {reason} (not counted as passed)")
+    from .report._terminal import reach_lines
+
+    for line in reach_lines(summary)[:6]:
+        print(line)
     timings = summary["timings"]
     first = timings["first_finding_seconds"]
     print(f"time: {timings['total_seconds']:.2f} s"
