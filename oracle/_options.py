@@ -25,7 +25,7 @@ from ._errors import InvalidInputError
 from ._integers import parse_integer
 
 __all__ = ["MAX_SECONDS", "MAX_SEED", "seconds_option", "integer_option", "memory_option",
-           "physical_memory_mib", "check_output_file", "check_output_folder"]
+           "physical_memory_mib", "check_output_file", "check_output_folder", "remove_folders"]
 
 #: Longest time any seconds option may give: one day.
 MAX_SECONDS = 86400.0
@@ -96,35 +96,42 @@ def memory_option(option: str = "--memory-limit"):
                           top_name=", the physical memory of this machine")
 
 
-def check_output_folder(folder: str | os.PathLike, option: str) -> None:
+def check_output_folder(folder: str | os.PathLike, option: str, created: list | None = None) -> None:
     """Raise InvalidInputError (one line naming ``option``) unless ``folder`` is, or can be
-    created as, a folder where files can be written.  Leaves nothing behind."""
+    created as, a folder where files can be written.  The folders it creates stay when the
+    check passes (the run writes there next; removing them would race with a concurrent
+    audit using the same folder; they are noted in ``created``, for a caller whose later
+    check fails) and are removed when it fails."""
     path = os.path.abspath(os.fspath(folder))
     if os.path.exists(path) and not os.path.isdir(path):
         raise InvalidInputError(f"{option} {folder}: exists and is not a folder")
-    created = []
+    mine: list = []
     try:
-        _make_missing(path, folder, option, created)
+        _make_missing(path, folder, option, mine)
         handle, probe = tempfile.mkstemp(prefix=".ntoracle-probe-", dir=path)
         os.close(handle)
         os.unlink(probe)
-    except OSError as error:
+    except (OSError, InvalidInputError) as error:
+        _remove(mine)
+        if isinstance(error, InvalidInputError):
+            raise
         raise InvalidInputError(f"{option} {folder}: cannot write there: "
                                 f"{error.strerror or error}") from None
-    finally:
-        _remove(created)
+    if created is not None:
+        created.extend(mine)
 
 
-def check_output_file(file: str | os.PathLike, option: str) -> None:
+def check_output_file(file: str | os.PathLike, option: str, created: list | None = None) -> None:
     """Raise InvalidInputError (one line naming ``option``) unless ``file`` can be written
-    (created, with its missing folders, or opened for appending).  Leaves nothing behind:
-    a file or folder the probe creates is removed, an existing file is not changed."""
+    (created, with its missing folders, or opened for appending).  The probe file is removed
+    and an existing file is not changed; folders it creates stay when the check passes and
+    are removed when it fails (see :func:`check_output_folder` for ``created``)."""
     path = os.path.abspath(os.fspath(file))
     if os.path.isdir(path):
         raise InvalidInputError(f"{option} {file}: is a folder, not a file")
-    created = []
+    mine: list = []
     try:
-        _make_missing(os.path.dirname(path), file, option, created)
+        _make_missing(os.path.dirname(path), file, option, mine)
         if os.path.lexists(path):
             with open(path, "ab"):
                 pass
@@ -132,11 +139,14 @@ def check_output_file(file: str | os.PathLike, option: str) -> None:
             with open(path, "xb"):
                 pass
             os.unlink(path)
-    except OSError as error:
+    except (OSError, InvalidInputError) as error:
+        _remove(mine)
+        if isinstance(error, InvalidInputError):
+            raise
         raise InvalidInputError(f"{option} {file}: cannot write it: "
                                 f"{error.strerror or error}") from None
-    finally:
-        _remove(created)
+    if created is not None:
+        created.extend(mine)
 
 
 def _make_missing(path: str, given, option: str, created: list) -> None:
@@ -153,6 +163,11 @@ def _make_missing(path: str, given, option: str, created: list) -> None:
     for folder in reversed(missing):
         os.mkdir(folder)
         created.append(folder)
+
+
+def remove_folders(created: list) -> None:
+    """Remove the (empty) folders noted by the checks above, innermost first."""
+    _remove(created)
 
 
 def _remove(created: list) -> None:

@@ -20,7 +20,7 @@ from ._errors import InvalidInputError, OracleError, OutOfReachError
 from ._bounded import bounded_text
 from ._integers import parse_integer
 from ._options import (MAX_SEED, check_output_file, check_output_folder, integer_option,
-                       memory_option, seconds_option)
+                       memory_option, remove_folders, seconds_option)
 
 EXIT_OK, EXIT_FAILED, EXIT_USAGE, EXIT_OUT_OF_REACH, EXIT_INTERNAL, EXIT_NO_VERDICT = 0, 1, 2, 3, 4, 5
 EXIT_INTERRUPTED = 130
@@ -394,16 +394,21 @@ def _audit(arguments) -> int:
 def _check_outputs(*, json_file=None, report=None, corpus=None, stream=None, runs=None) -> None:
     """Refuse (exit 2, one line) an output path that cannot be written, before anything runs.
     ``stream`` None means the default results folder .ntoracle/runs (and runs=False skips it)."""
-    if json_file:
-        check_output_file(json_file, "--json")
-    if report:
-        check_output_folder(report, "--report")
-    if corpus:
-        check_output_file(corpus, "--corpus")
-    if stream:
-        check_output_file(stream, "--stream")
-    elif runs is not False:
-        check_output_folder(os.path.join(".ntoracle", "runs"), "the results folder")
+    created: list = []      # folders made by the checks: kept if all pass, removed if one fails
+    try:
+        if json_file:
+            check_output_file(json_file, "--json", created)
+        if report:
+            check_output_folder(report, "--report", created)
+        if corpus:
+            check_output_file(corpus, "--corpus", created)
+        if stream:
+            check_output_file(stream, "--stream", created)
+        elif runs is not False:
+            check_output_folder(os.path.join(".ntoracle", "runs"), "the results folder", created)
+    except InvalidInputError:
+        remove_folders(created)
+        raise
 
 
 def _role_minimum(name: str) -> int | None:

@@ -348,7 +348,7 @@ class _Run:
                 else:
                     self.skipped.setdefault(reason, []).append(self.role.magnitude(arguments))
                     self.family_stops.setdefault(family, reason)
-            start += size
+            start = min(start + size, len(points))
             began = time.perf_counter()
             results = self.target.call_many([a for _, a in batch], stop_on_fault=True) if batch else []
             if len(results) < len(batch):       # a fault cut the batch short: ask the rest again

@@ -114,7 +114,9 @@ class LineProcess:
         import its target raises :class:`InvalidInputError` with the reason."""
         self._output = tempfile.TemporaryFile()
         self._buffer, self._scanned = bytearray(), 0
-        self._fresh, self._killed_by_us = True, False
+        # an executable's first answer may include its start-up; the worker's start-up ends
+        # with its handshake, so its first call has the plain timeout like every other
+        self._fresh, self._killed_by_us = self.worker_spec is None, False
         if self.worker_spec is None:
             self._start_executable()
         else:
