@@ -191,6 +191,15 @@ def ledger(tmp_path_factory, request):
 
 
 @pytest.mark.skipif(not MEMBERS, reason="tests/zoo/catalogue.yaml not present yet")
+def test_default_run_holds_a_defective_member_of_every_kind_and_role():
+    default = _default_run(MEMBERS)
+    chosen = [member for member in MEMBERS if _id(member) in default and member.get("defective")]
+    assert {member["kind"] for member in chosen} == set(KIND_STATUSES)
+    assert {member["role"] for member in chosen} == {member["role"] for member in MEMBERS}
+    assert all(member.get("kind") in KIND_STATUSES for member in MEMBERS if member.get("defective"))
+
+
+@pytest.mark.skipif(not MEMBERS, reason="tests/zoo/catalogue.yaml not present yet")
 @pytest.mark.parametrize("member", _parameters(MEMBERS))
 def test_ci_profile_judges_zoo_member(member, tmp_path, ledger):
     role = member["role"]

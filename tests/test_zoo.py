@@ -592,6 +592,13 @@ def test_thirty_two_bit_members_are_right_just_below_the_wrap():
     assert REFERENCE["is_prime"](2**32 - 5)
 
 
+def test_chatty_member_prints_on_every_call_and_answers_right(capsys):
+    prime_pi = load_target(BY_ID["prime_pi_chatty"])
+    for x in (0, 100, 10**6):
+        assert prime_pi(x) == REFERENCE["prime_pi"](x)
+    assert capsys.readouterr().out.count("\n") == 3
+
+
 def test_int16_twin_count_wraps_exactly_at_the_32768th_pair():
     twin_pi = load_target(BY_ID["twin_pi_int16"])
     witness = BY_ID["twin_pi_int16"]["witness"]
