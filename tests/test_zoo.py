@@ -440,7 +440,8 @@ def test_defective_member_gives_a_wrong_value_at_its_witness(entry):
 
 
 def loosely_read(role, value):
-    """A wrong-typed answer read as a lenient caller would: truthiness for is_prime, else as is."""
+    """A wrong-typed answer read as a lenient caller would: truthiness for is_prime, else as is
+    (a float count equals its int)."""
     return bool(value) if role == "is_prime" else value
 
 
@@ -449,7 +450,8 @@ def test_defective_member_returns_a_wrong_type_at_its_witness(entry):
     member = load_target(entry)
     role, witness = entry["role"], entry["witness"]
     got = call(member, role, witness)
-    assert loosely_read(role, got) == reference(role, witness), "the value is right, only the type is wrong"
+    if got is not None or role == "is_prime":      # None is no value at all, except read as falsy
+        assert loosely_read(role, got) == reference(role, witness), "the value is right, only the type is wrong"
     assert normalised(role, got) != reference(role, witness)
     assert normalised(role, got)[0] == "wrong type"
     assert_agrees_at_ordinary(entry, member)
