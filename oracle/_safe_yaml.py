@@ -18,7 +18,7 @@ from pathlib import Path
 
 from ._errors import InvalidInputError
 
-__all__ = ["load_limited", "MAX_BYTES", "MAX_ALIASES", "MAX_NODES", "MAX_DEPTH"]
+__all__ = ["load_limited", "read_limited", "check_limits", "MAX_BYTES", "MAX_ALIASES", "MAX_NODES", "MAX_DEPTH"]
 
 #: Default largest file, in bytes.
 MAX_BYTES = 8 * 2**20
@@ -40,6 +40,20 @@ def load_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
     """
     import yaml
 
+    text, name = read_limited(source, name=name, max_bytes=max_bytes)
+    check_limits(text, name=name, max_aliases=max_aliases, max_nodes=max_nodes,
+                 max_depth=max_depth)
+    try:
+        return yaml.load(text, Loader=yaml.SafeLoader)
+    except yaml.YAMLError as error:
+        raise _not_yaml(name, error) from None
+
+
+def read_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
+                 max_bytes: int = MAX_BYTES) -> tuple[str, str]:
+    """``(text, name)`` of a file (a path) or of given ``bytes``/``str`` (with ``name``):
+    refused (InvalidInputError naming it) above ``max_bytes`` -- a file before it is read --
+    or when it is not UTF-8."""
     if isinstance(source, (str, os.PathLike)) and name is None:
         path = Path(source)
         name = str(path)
@@ -47,18 +61,28 @@ def load_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
             size = path.stat().st_size
             if size > max_bytes:
                 raise InvalidInputError(f"{name}: {size} bytes, more than the limit of {max_bytes}")
-            data = path.read_bytes()
+            with path.open("rb") as handle:
+                data = handle.read(max_bytes + 1)        # a file growing meanwhile stays bounded
         except OSError as error:
             raise InvalidInputError(f"{name}: cannot read: {error.strerror or error}") from None
     else:
         data = source.encode("utf-8") if isinstance(source, str) else bytes(source)
         name = name or "<yaml>"
     if len(data) > max_bytes:
-        raise InvalidInputError(f"{name}: {len(data)} bytes, more than the limit of {max_bytes}")
+        raise InvalidInputError(f"{name}: more than the limit of {max_bytes} bytes")
     try:
-        text = data.decode("utf-8")
+        return data.decode("utf-8"), name
     except UnicodeDecodeError as error:
         raise InvalidInputError(f"{name}: not UTF-8 text (byte {error.start})") from None
+
+
+def check_limits(text: str, *, name: str = "<yaml>", max_aliases: int = MAX_ALIASES,
+                 max_nodes: int = MAX_NODES, max_depth: int = MAX_DEPTH) -> None:
+    """Walk the YAML events of ``text`` and raise InvalidInputError (``name: line N: ...``)
+    over the alias, expansion or depth limit, or for text that is not YAML.  Costs memory
+    linear in the text, not in its expansion; builds nothing."""
+    import yaml
+
     aliases = total = 0                 # total: nodes so far, aliases expanded
     sizes: dict[str, int] = {}          # anchor -> nodes of its subtree, aliases expanded
     open_nodes: list[list] = [[None, 0]]  # [anchor, nodes so far] per open collection
@@ -91,9 +115,12 @@ def load_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
             if total > max_nodes:
                 raise InvalidInputError(f"{name}: line {line}: more than {max_nodes} nodes with "
                                         "its aliases expanded")
-        return yaml.load(text, Loader=yaml.SafeLoader)
     except yaml.YAMLError as error:
-        mark = getattr(error, "problem_mark", None)
-        where = f"line {mark.line + 1}: " if mark is not None else ""
-        problem = getattr(error, "problem", None) or str(error).splitlines()[0]
-        raise InvalidInputError(f"{name}: {where}not valid YAML: {problem}") from None
+        raise _not_yaml(name, error) from None
+
+
+def _not_yaml(name: str, error) -> InvalidInputError:
+    mark = getattr(error, "problem_mark", None)
+    where = f"line {mark.line + 1}: " if mark is not None else ""
+    problem = getattr(error, "problem", None) or str(error).splitlines()[0]
+    return InvalidInputError(f"{name}: {where}not valid YAML: {problem}")

@@ -17,7 +17,10 @@ import sys
 import time
 
 from ._errors import InvalidInputError, OracleError, OutOfReachError
+from ._bounded import bounded_text
 from ._integers import parse_integer
+from ._options import (MAX_SEED, check_output_file, check_output_folder, integer_option,
+                       memory_option, seconds_option)
 
 EXIT_OK, EXIT_FAILED, EXIT_USAGE, EXIT_OUT_OF_REACH, EXIT_INTERNAL, EXIT_NO_VERDICT = 0, 1, 2, 3, 4, 5
 EXIT_INTERRUPTED = 130
@@ -51,7 +54,7 @@ def build_parser() -> argparse.ArgumentParser:
                        help="one of: " + ", ".join(VALUE_FUNCTIONS))
     value.add_argument("n", metavar="N", help="an integer: 123, 1_000, 10**14, 2**64-1, 1e12")
     value.add_argument("--json", action="store_true", help="print one JSON object")
-    value.add_argument("--budget", type=float, default=None, metavar="SECONDS",
+    value.add_argument("--budget", type=seconds_option("--budget"), default=None, metavar="SECONDS",
                        help="refuse (exit 3) rather than compute longer than this")
 
     bounds = commands.add_parser("bounds", help="a proven interval with its theorems",
@@ -67,7 +70,8 @@ def build_parser() -> argparse.ArgumentParser:
                     "Brindlewick observatory's) with the ci profile, print the findings and first "
                     "divergences, and write HTML and JSON reports. Exit 0 when the audit finds "
                     "exactly the defects the scenario documents.")
-    demo.add_argument("--seed", default=None, metavar="N", help="sampling seed (default 1987)")
+    demo.add_argument("--seed", type=integer_option("--seed", 0, MAX_SEED), default=None, metavar="N",
+                      help="sampling seed (default 1987)")
     demo.add_argument("--report", default="ntoracle-report", metavar="DIR",
                       help="folder for report.html, audit.json and the results (default ./ntoracle-report)")
     demo.add_argument("--quiet", action="store_true", help="print only the summary table")
@@ -89,12 +93,17 @@ def _add_target_options(command) -> None:
     command.add_argument("--role", choices=ROLE_NAMES, metavar="ROLE",
                          help="what the target computes: " + ", ".join(ROLE_NAMES)
                               + " (inferred from the function name when unambiguous)")
-    command.add_argument("--timeout", type=float, default=None, metavar="SECONDS",
-                         help="per-call limit; a slower call is a 'too slow' finding")
+    command.add_argument("--timeout", type=seconds_option("--timeout"), default=None, metavar="SECONDS",
+                         help="per-call limit; a call past it is 'hung' (a finding) or, at the top of the "
+                              "candidate's reach after calls that grew slower, 'too slow' (the end of "
+                              "its reach; a finding only with --slow-fails)")
+    command.add_argument("--in-process", action="store_true",
+                         help="call a Python target in this process: faster, but it then shares "
+                              "the harness's memory and can change the verdict; only for code "
+                              "you trust (default: an isolated child process)")
     command.add_argument("--isolate", action="store_true",
-                         help="run a Python target in a child process with a memory limit "
-                              "(executables always are)")
-    command.add_argument("--memory-limit", type=int, default=4096, metavar="MIB",
+                         help="the default for Python targets (kept for old command lines)")
+    command.add_argument("--memory-limit", type=memory_option(), default=4096, metavar="MIB",
                          help="address-space limit of an isolated target (default 4096 MiB)")
     command.add_argument("--half-open", action="store_true",
                          help="primes_in(a, b) lists the primes of [a, b) instead of [a, b]")
@@ -119,7 +128,8 @@ def _add_audit_parser(commands) -> None:
     _add_target_options(audit)
     audit.add_argument("--profile", choices=PROFILE_NAMES, default="ci", metavar="PROFILE",
                        help="quick | ci (default) | deep | exhaustive")
-    audit.add_argument("--seed", metavar="N", help="seed of the random points (printed by every run)")
+    audit.add_argument("--seed", type=integer_option("--seed", 0, MAX_SEED), metavar="N",
+                       help="seed of the random points (printed by every run)")
     audit.add_argument("--max", dest="maximum", metavar="N",
                        help="the largest input the target claims to handle; checks above are skipped")
     audit.add_argument("--json", dest="json_file", metavar="FILE", help="write the summary as JSON")
@@ -133,6 +143,9 @@ def _add_audit_parser(commands) -> None:
                        help="stop asking after N findings (default: the profile's enough_findings)")
     audit.add_argument("--no-early-stop", action="store_true",
                        help="ask every point however many checks fail")
+    audit.add_argument("--slow-fails", action="store_true",
+                       help="a call too slow at the top of the candidate's reach is a failure "
+                            "(default: it ends the reach, and a hang is still a failure)")
     audit.add_argument("--corpus", metavar="FILE", default=os.path.join(".ntoracle", "regressions.yaml"),
                        help="regression corpus, replayed first and extended with new failures "
                             "(default .ntoracle/regressions.yaml)")
@@ -251,9 +264,10 @@ _TOUR = (
 def _demo(arguments) -> int:
     from .demo import DEMO_SEED, run_demo
 
-    seed = parse_integer(arguments.seed) if arguments.seed is not None else DEMO_SEED
+    seed = arguments.seed if arguments.seed is not None else DEMO_SEED
     if seed < 0:
         raise InvalidInputError(f"--seed {seed}: must be >= 0")
+    _check_outputs(report=arguments.report, runs=False)
     return run_demo(arguments.report, seed=seed, quiet=arguments.quiet)
 
 
@@ -294,8 +308,10 @@ def _make_target(spec, command, role, arguments):
                                    memory_limit=memory), "exec"
     if os.getcwd() not in sys.path and "" not in sys.path:
         sys.path.insert(0, os.getcwd())
+    if arguments.in_process and arguments.isolate:
+        raise InvalidInputError("--in-process and --isolate: choose one")
     return targets.python_target(spec, role_name=role, timeout=timeout or 1.0,
-                                 isolate=arguments.isolate, memory_limit=memory), "python"
+                                 isolate=not arguments.in_process, memory_limit=memory), "python"
 
 
 def _role_of(spec, command, given) -> str:
@@ -315,6 +331,7 @@ def _audit(arguments) -> int:
     if arguments.summary_from:
         if not os.path.isfile(arguments.summary_from):
             raise InvalidInputError(f"{arguments.summary_from}: no such file")
+        _check_outputs(json_file=arguments.json_file)
         summary = engine.rebuild_summary(arguments.summary_from)
         _print_summary(summary)
         _write_json(arguments.json_file, summary)
@@ -322,7 +339,7 @@ def _audit(arguments) -> int:
     if (arguments.target is None) == (arguments.exec_command is None):
         raise InvalidInputError("give either TARGET (package.module:function) or --exec CMD")
     role = _role_of(arguments.target, arguments.exec_command, arguments.role)
-    seed = parse_integer(arguments.seed) if arguments.seed is not None else sampling.new_seed()
+    seed = arguments.seed if arguments.seed is not None else sampling.new_seed()
     if seed < 0:
         raise InvalidInputError(f"--seed {seed}: must be >= 0")
     maximum = parse_integer(arguments.maximum) if arguments.maximum is not None else None
@@ -337,6 +354,9 @@ def _audit(arguments) -> int:
     profile = sampling.profile(arguments.profile)
     timeout = arguments.timeout if arguments.timeout is not None else profile.timeout
     arguments.timeout = timeout
+    _check_outputs(json_file=arguments.json_file, report=arguments.report,
+                   corpus=None if arguments.no_corpus else arguments.corpus,
+                   stream=arguments.stream)
     target, kind = _make_target(arguments.target, arguments.exec_command, role, arguments)
     print(f"ntoracle audit: {target.description} as {role}, profile {profile.name}, seed {seed} "
           f"(repeat with --seed {seed}); timeout {timeout:g} s per call"
@@ -345,7 +365,8 @@ def _audit(arguments) -> int:
                                   maximum=maximum, conventions=_conventions(arguments),
                                   corpus=None if arguments.no_corpus else arguments.corpus,
                                   stream=arguments.stream or engine.new_run_path(".ntoracle"),
-                                  stop_after=stop_after, early_stop=not arguments.no_early_stop)
+                                  stop_after=stop_after, early_stop=not arguments.no_early_stop,
+                                  slow_fails=arguments.slow_fails)
     from . import report
 
     interrupted = False
@@ -368,6 +389,21 @@ def _audit(arguments) -> int:
         print("ntoracle: interrupted; the findings so far are saved", file=sys.stderr)
         return EXIT_INTERRUPTED
     return _exit_code(summary)
+
+
+def _check_outputs(*, json_file=None, report=None, corpus=None, stream=None, runs=None) -> None:
+    """Refuse (exit 2, one line) an output path that cannot be written, before anything runs.
+    ``stream`` None means the default results folder .ntoracle/runs (and runs=False skips it)."""
+    if json_file:
+        check_output_file(json_file, "--json")
+    if report:
+        check_output_folder(report, "--report")
+    if corpus:
+        check_output_file(corpus, "--corpus")
+    if stream:
+        check_output_file(stream, "--stream")
+    elif runs is not False:
+        check_output_folder(os.path.join(".ntoracle", "runs"), "the results folder")
 
 
 def _role_minimum(name: str) -> int | None:
@@ -399,6 +435,7 @@ def _replay(arguments) -> int:
 
     if arguments.target and arguments.exec_command:
         raise InvalidInputError("give TARGET or --exec CMD, not both")
+    _check_outputs(json_file=arguments.json_file, runs=False)
     groups = _replay_groups(arguments.file)
     if arguments.role:
         groups = {key: points for key, points in groups.items() if key[2] == arguments.role}
@@ -471,11 +508,13 @@ def _describe(failure: dict) -> str:
     call = ", ".join(str(a) for a in failure["arguments"])
     text = f"[{failure['status']}] {failure['check']} at ({call}) [{failure['family']}]"
     if failure["status"] in ("wrong", "nondeterministic"):
-        got = str(failure["got"])
-        expected = str(failure["expected"])
-        text += f": got {got[:80]}, expected {expected[:80]} [{failure['provenance']}]"
-    if failure.get("detail") and not failure["detail"].startswith("got "):
-        text += f" -- {failure['detail'][:160]}"
+        from .report._describe import show_value
+
+        got = show_value(failure["got"], 80)
+        expected = show_value(failure["expected"], 80)
+        text += f": got {got}, expected {expected} [{failure['provenance']}]"
+    if failure.get("detail") and not str(failure["detail"]).startswith("got "):
+        text += f" -- {bounded_text(failure['detail'], 160)}"
     return text
 
 
@@ -496,6 +535,11 @@ def _print_summary(summary: dict, listed: int = 20) -> None:
         reservations.append(f"{summary['not_run']} point(s) not run: {reasons}")
     if summary.get("garbled_lines"):
         reservations.append(f"{summary['garbled_lines']} garbled line(s) skipped")
+    if summary.get("tampered"):
+        reservations.append("the candidate changed the harness it ran in ("
+                            + ", ".join(summary["tampered"][:3])
+                            + (", ..." if len(summary["tampered"]) > 3 else "")
+                            + "): every check of this run is void; audit it isolated (the default)")
     print(f"{verdict}: {summary['passed_checks']} of {summary['checks']} checks passed, "
           f"{len(failures)} finding(s)" + "".join(f" -- {r}" for r in reservations))
     for failure in failures[:listed]:
@@ -507,11 +551,16 @@ def _print_summary(summary: dict, listed: int = 20) -> None:
         where = divergence.get("prime", divergence.get("input"))
         print(f"{divergence['kind']}: {where}"
               + (f" (last agreeing: {divergence['last_agreeing']})" if "last_agreeing" in divergence else "")
-              + (f"; got {divergence.get('got')}, expected {divergence.get('expected')}"
+              + (f"; got {bounded_text(divergence.get('got'), 80)}, "
+                 f"expected {bounded_text(divergence.get('expected'), 80)}"
                  if "got" in divergence else "")
               + (f" [{divergence['provenance']}]" if divergence.get("provenance") else ""))
     for reason, count in summary["skipped"].items():
         print(f"skipped {count} point(s): {reason} (not counted as passed)")
+    from .report._terminal import reach_lines
+
+    for line in reach_lines(summary)[:6]:
+        print(line)
     timings = summary["timings"]
     first = timings["first_finding_seconds"]
     print(f"time: {timings['total_seconds']:.2f} s"
@@ -521,6 +570,8 @@ def _print_summary(summary: dict, listed: int = 20) -> None:
 
 def _write_json(path, data) -> None:
     if path:
+        if os.path.dirname(path):
+            os.makedirs(os.path.dirname(path), exist_ok=True)
         with open(path, "w", encoding="utf-8") as handle:
             json.dump(data, handle, indent=1)
 

@@ -33,6 +33,7 @@ import math
 from dataclasses import dataclass
 from typing import Iterable
 
+from ._bounded import bounded_text
 from ._errors import InvalidInputError, OutOfReachError
 from ._integers import require_int
 
@@ -191,7 +192,7 @@ def verify_factorization(n: int, factors) -> FactorizationReport:
         product *= prime ** exponent
     problems: list[str] = []
     if product != n:
-        problems.append(f"product of the factors is {product}, not {n}")
+        problems.append(f"product of the factors is {bounded_text(product, 200)}, not {n}")
     verdicts: dict[int, str] = {}
     for prime, _ in pairs:
         if prime < 2:

@@ -23,6 +23,10 @@ with the messages of the check items).  ``--ntoracle-hypothesis-profile
 ntoracle-ci`` (or the ini key of that name) loads the hypothesis settings
 profile of :mod:`oracle.strategies`; without it no hypothesis profile is loaded.
 
+Python targets are imported and called only in isolated worker processes (the pytest
+process, which judges, never imports them); ``--ntoracle-in-process`` (or the ini key
+``ntoracle_in_process = true``) calls them in the pytest process instead, trusting them.
+
 With no target and no suite file the plugin adds nothing and imports nothing
 of the library: every hook below imports what it needs when it runs.
 
@@ -44,6 +48,8 @@ _HELP_PROFILE = "profile of the checks: quick, ci, deep or exhaustive (default q
 _HELP_SEED = "seed of the sampled points (default: drawn at random and printed in the header)"
 _HELP_REPORT = "write the records of every check item and a summary.json into DIR"
 _HELP_HYPOTHESIS = "load this hypothesis settings profile of oracle.strategies (ntoracle-ci, ntoracle-dev)"
+_HELP_IN_PROCESS = ("call Python targets in the pytest process instead of an isolated worker: "
+                    "faster, but the target can then change the verdict; only for code you trust")
 _HELP_TARGETS_INI = "targets to check, one 'ROLE = package.module:function' a line"
 
 
@@ -58,7 +64,10 @@ def pytest_addoption(parser):
     group.addoption("--ntoracle-report", metavar="DIR", dest="ntoracle_report", help=_HELP_REPORT)
     group.addoption("--ntoracle-hypothesis-profile", metavar="NAME",
                     dest="ntoracle_hypothesis_profile", help=_HELP_HYPOTHESIS)
+    group.addoption("--ntoracle-in-process", action="store_true", dest="ntoracle_in_process",
+                    help=_HELP_IN_PROCESS)
     parser.addini("ntoracle_targets", _HELP_TARGETS_INI, type="linelist", default=[])
+    parser.addini("ntoracle_in_process", _HELP_IN_PROCESS, type="bool", default=False)
     parser.addini("ntoracle_profile", _HELP_PROFILE, default="")
     parser.addini("ntoracle_seed", _HELP_SEED, default="")
     parser.addini("ntoracle_hypothesis_profile", _HELP_HYPOTHESIS, default="")
@@ -78,7 +87,7 @@ def pytest_configure(config):
         _check_targets(settings)
         from .pytest_support._nodes import TargetPool
 
-        config.stash[_settings.POOL] = TargetPool()
+        config.stash[_settings.POOL] = TargetPool(in_process=settings.in_process)
         if settings.report_dir and not hasattr(config, "workerinput"):
             from .pytest_support._nodes import ReportWriter
 
@@ -88,11 +97,13 @@ def pytest_configure(config):
 
 def _check_targets(settings) -> None:
     """A Python target that cannot be imported, or a command that cannot be found, is a usage
-    error, reported before any test."""
+    error, reported before any test.  A Python target is imported only in a worker process
+    (the pytest process, which holds the oracle and the judge, never imports candidate code):
+    the worker is started once here to read its handshake."""
     import shlex
     import shutil
 
-    from .targets import load_callable
+    from . import targets
     from ._errors import InvalidInputError
 
     for target in settings.targets:
@@ -101,12 +112,12 @@ def _check_targets(settings) -> None:
             if not argv or shutil.which(argv[0]) is None:
                 raise pytest.UsageError(f"ntoracle: {target.source}={target.role}={target.spec}: "
                                         "no such command")
-        else:
-            try:
-                load_callable(target.spec)
-            except InvalidInputError as error:
-                raise pytest.UsageError(f"ntoracle: {target.source}: {error} (is its folder on "
-                                        "sys.path? pytest's 'pythonpath' ini key adds it)") from None
+            continue
+        try:
+            targets.python_target(target.spec, role_name=target.role, timeout=1.0).close()
+        except InvalidInputError as error:
+            raise pytest.UsageError(f"ntoracle: {target.source}: {error} (is its folder on "
+                                    "sys.path? pytest's 'pythonpath' ini key adds it)") from None
 
 
 def _hypothesis_profiles(config, settings) -> None:

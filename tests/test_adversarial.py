@@ -106,7 +106,32 @@ def test_published_tables_have_the_defining_property():
     for n in adversarial.STRONG_PSEUDOPRIMES_BASES_2_3_5_7:
         assert not sympy.isprime(n) and passes_strong_test(n, (2, 3, 5, 7))
     assert list(adversarial.STRONG_PSEUDOPRIMES_BASES_2_3_5_7[:4]) == A074773
-    assert list(adversarial.STRONG_PSEUDOPRIMES_BASE_2) == A001262
+    assert list(adversarial.STRONG_PSEUDOPRIMES_BASE_2[:12]) == A001262
+    for p in adversarial.WIEFERICH_PRIMES:      # OEIS A001220
+        assert sympy.isprime(p) and pow(2, p - 1, p * p) == 1
+        assert passes_strong_test(p * p, (2,))
+
+
+def _strong_to_base_2(n: int) -> bool:
+    """The defining test, written out here (independent of the library's search)."""
+    d, s = n - 1, 0
+    while d % 2 == 0:
+        d, s = d // 2, s + 1
+    x = pow(2, d, n)
+    if x in (1, n - 1):
+        return True
+    for _ in range(s - 1):
+        x = x * x % n
+        if x == n - 1:
+            return True
+    return False
+
+
+def test_the_base_2_table_is_every_strong_pseudoprime_below_its_end():
+    # OEIS A001262: complete below 2 * 10**6 by an exhaustive search with the test above
+    found = [n for n in range(9, 2 * 10**6, 2) if _strong_to_base_2(n) and not sympy.isprime(n)]
+    assert list(adversarial.STRONG_PSEUDOPRIMES_BASE_2) == found
+    assert 1093**2 in found                      # a Wieferich square (OEIS A001220)
 
 
 @pytest.mark.parametrize("bases", [(2,), (3, 5), (2, 3, 5, 7), tuple(FIRST_12_PRIMES)])

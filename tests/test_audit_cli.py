@@ -150,3 +150,188 @@ def test_replay_never_runs_a_recorded_command(capsys, in_tmp):
     assert code == 0 and "1 recorded input(s), 0 still failing" in out   # pi(10) = 4 (sympy)
     code, out, _ = run(capsys, "replay", "c.yaml", "--role", "nth_prime")
     assert code == 1 and "never run" not in out and "as nth_prime" in out
+
+
+# -- option ranges and output paths (issue 11, bounded inputs) ---------------- #
+
+def usage_error(capsys, *argv):
+    """The exit code and stderr of a command refused by argparse or by the command itself."""
+    try:
+        code = cli.main(list(argv))
+    except SystemExit as stop:
+        code = stop.code
+    return code, capsys.readouterr().err
+
+
+@pytest.mark.parametrize("command", [["audit", "_candidates:prime_pi"], ["replay", "c.yaml"]])
+@pytest.mark.parametrize("option, value", [
+    ("--timeout", "inf"), ("--timeout", "nan"), ("--timeout", "1e20"), ("--timeout", "0"),
+    ("--timeout", "-1"), ("--timeout", "86400.5"), ("--timeout", "soon"),
+    ("--memory-limit", "0"), ("--memory-limit", "-5"), ("--memory-limit", "99999999999999"),
+])
+def test_out_of_range_options_exit_2_with_one_line_naming_the_option(capsys, in_tmp, command,
+                                                                       option, value):
+    code, err = usage_error(capsys, *command, option, value)
+    assert code == 2
+    assert len(err.strip().splitlines()) == 1 and option in err and "Traceback" not in err
+    assert not (in_tmp / ".ntoracle").exists()
+
+
+@pytest.mark.parametrize("argv", [
+    ["audit", "_candidates:prime_pi", "--seed", "-1"],
+    ["audit", "_candidates:prime_pi", "--seed", "2**64"],
+    ["audit", "_candidates:prime_pi", "--seed", "10**5000"],
+    ["demo", "--seed", "18446744073709551616"],
+    ["value", "pi", "10", "--budget", "inf"],
+    ["value", "pi", "10", "--budget", "nan"],
+    ["value", "pi", "10", "--budget", "-1"],
+    ["audit", "_candidates:prime_pi", "--max", "10**10**10"],
+])
+def test_seed_budget_and_max_are_bounded(capsys, in_tmp, argv):
+    code, err = usage_error(capsys, *argv)
+    assert code == 2 and len(err.strip().splitlines()) == 1 and "Traceback" not in err
+
+
+def test_memory_limit_bound_is_this_machines_physical_memory(capsys, in_tmp):
+    import os
+
+    physical = os.sysconf("SC_PAGE_SIZE") * os.sysconf("SC_PHYS_PAGES") // 2**20
+    code, err = usage_error(capsys, "audit", "_candidates:prime_pi", "--memory-limit",
+                            str(physical + 1))
+    assert code == 2 and f"<= {physical} MiB" in err
+    # at the bound and with a day's timeout the options are accepted (the audit then runs)
+    code, out, _ = run(capsys, "audit", "_candidates:prime_pi", "--memory-limit", str(physical),
+                       "--timeout", "86400", "--seed", str(2**64 - 1), "--profile", "quick",
+                       "--max", "300", "--no-corpus")
+    assert code == 0 and f"seed {2**64 - 1}" in out
+
+
+def _marking_candidate(folder, name):
+    """A module whose prime_pi leaves a file 'called' behind when it is called at all."""
+    (folder / f"{name}.py").write_text(
+        "import pathlib, sympy\n"
+        "def prime_pi(x):\n"
+        "    pathlib.Path('called').touch()\n"
+        "    return int(sympy.primepi(x))\n")
+    return f"{name}:prime_pi"
+
+
+@pytest.mark.parametrize("option, where", [
+    ("--json", "afile/out.json"),             # below a regular file: cannot be created
+    ("--json", "afile/deeper/out.json"),
+    ("--json", "folder"),                     # a folder where a file is expected
+    ("--json", "/proc/no-such/out.json"),
+    ("--report", "afile/report"),
+    ("--corpus", "afile/regressions.yaml"),
+    ("--corpus", "folder"),
+    ("--stream", "afile/results.jsonl"),
+])
+def test_unwritable_output_paths_refused_before_the_candidate_is_called(capsys, in_tmp, option,
+                                                                         where):
+    (in_tmp / "afile").write_text("a regular file\n")
+    (in_tmp / "folder").mkdir()
+    target = _marking_candidate(in_tmp, f"marking_{abs(hash((option, where)))}")
+    before = sorted(p.name for p in in_tmp.iterdir())
+    code, err = usage_error(capsys, "audit", target, "--profile", "quick", "--max", "300",
+                            option, where)
+    assert code == 2 and len(err.strip().splitlines()) == 1 and option in err and where in err
+    assert not (in_tmp / "called").exists()                       # the candidate was never called
+    after = sorted(p.name for p in in_tmp.iterdir() if not p.name.startswith("__pycache__"))
+    assert after == before                                        # and nothing was left behind
+    assert (in_tmp / "afile").read_text() == "a regular file\n"
+
+
+def test_default_results_folder_that_cannot_be_made_is_refused(capsys, in_tmp):
+    (in_tmp / ".ntoracle").write_text("not a folder\n")
+    target = _marking_candidate(in_tmp, "marking_results_folder")
+    code, err = usage_error(capsys, "audit", target, "--profile", "quick", "--max", "300",
+                            "--no-corpus")
+    assert code == 2 and "results folder" in err and not (in_tmp / "called").exists()
+
+
+def test_writable_outputs_pass_the_check_and_missing_folders_are_made(capsys, in_tmp):
+    code, _, _ = run(capsys, "audit", "_candidates:prime_pi", "--profile", "quick", "--max", "300",
+                     "--seed", "3", "--no-corpus", "--json", "new/deeper/s.json",
+                     "--report", "rep/inner", "--stream", "streams/r.jsonl")
+    assert code == 0
+    assert json.loads((in_tmp / "new" / "deeper" / "s.json").read_text())["seed"] == 3
+    assert (in_tmp / "rep" / "inner" / "report.html").exists()
+    assert (in_tmp / "streams" / "r.jsonl").exists()
+    assert not [p for p in in_tmp.rglob(".ntoracle-probe-*")]
+
+
+def test_replay_and_summary_check_the_json_path_and_demo_the_report_folder(capsys, in_tmp):
+    (in_tmp / "afile").write_text("x\n")
+    (in_tmp / "c.yaml").write_text("regressions:\n- {role: prime_pi, arguments: [10], "
+                                   "target: '_candidates:prime_pi'}\n")
+    code, err = usage_error(capsys, "replay", "c.yaml", "--json", "afile/s.json")
+    assert code == 2 and "--json" in err
+    (in_tmp / "r.jsonl").write_text('{"type": "start", "role": "prime_pi"}\n')
+    code, err = usage_error(capsys, "audit", "--summary-from", "r.jsonl", "--json", "afile/s.json")
+    assert code == 2 and "--json" in err
+    code, err = usage_error(capsys, "demo", "--report", "afile/rep")
+    assert code == 2 and "--report" in err
+    assert sorted(p.name for p in in_tmp.iterdir()) == ["afile", "c.yaml", "r.jsonl"]
+
+
+HUGE_CANDIDATES = '''
+TEXT = "<b>" + "y" * (10 * 2**20)
+LISTING = list(range(10**7))
+
+def prime_pi(x):
+    return 10**100000 + x
+
+def is_prime(n):
+    return TEXT
+
+def primes_in(a, b):
+    return LISTING
+'''
+
+
+@pytest.mark.parametrize("function, shown", [
+    ("prime_pi", "got an integer of 100001 digits"),       # 10**100000 + x: 100001 digits
+    ("is_prime", f"({3 + 10 * 2**20} characters)"),
+    ("primes_in", "(10000000 items in all)"),
+])
+def test_huge_answers_are_shown_cut_in_the_terminal_and_stored_bounded(capsys, in_tmp, function,
+                                                                        shown):
+    (in_tmp / "huge_answers.py").write_text(HUGE_CANDIDATES)
+    code, out, err = run(capsys, "audit", f"huge_answers:{function}", "--profile", "quick",
+                         "--max", "40", "--seed", "1", "--stop-after", "2", "--no-corpus",
+                         "--stream", "r.jsonl", "--json", "s.json", "--report", "rep")
+    assert code == 1, err
+    assert shown in out                                         # the terminal
+    page = (in_tmp / "rep" / "report.html").read_text()
+    assert shown in page and "<b>" not in page                   # the HTML report, escaped
+    assert max(len(line) for line in out.splitlines()) < 1000
+    for name in ("r.jsonl", "s.json", "rep/summary.json", "rep/report.txt"):
+        assert max(len(line) for line in (in_tmp / name).read_bytes().splitlines()) < 64 * 2**10
+    assert (in_tmp / "s.json").stat().st_size < 256 * 2**10
+
+
+HUGE_FACTORISATIONS = '''
+def big_exponent(n):
+    return {2: 10**12}                 # 2**(10**12): never to be multiplied out
+
+def big_factor(n):
+    return {10**4100 + 1: 1}           # more digits than any input has
+
+def zero_factor(n):
+    return {0: 1, 3: 10**12}
+'''
+
+
+@pytest.mark.parametrize("function, detail", [
+    ("big_exponent", "the product of the factors has at least"),
+    ("big_factor", "is larger than n"),
+    ("zero_factor", "the factor 0 makes the product 0"),
+])
+def test_absurd_factorisations_are_wrong_answers_not_errors(capsys, in_tmp, function, detail):
+    (in_tmp / "huge_factors.py").write_text(HUGE_FACTORISATIONS)
+    code, out, err = run(capsys, "audit", f"huge_factors:{function}", "--role", "factor",
+                         "--profile", "quick", "--max", "40", "--seed", "1", "--stop-after", "3",
+                         "--no-corpus", "--stream", "r.jsonl")
+    assert code == 1, err
+    assert "[wrong] factorization at (2)" in out and detail in out
+    assert max(len(line) for line in (in_tmp / "r.jsonl").read_bytes().splitlines()) < 64 * 2**10

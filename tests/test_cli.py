@@ -48,8 +48,7 @@ def test_value_json_booleans_are_json_booleans(capsys):
     ("value", "prev_prime", "2"),
     ("value", "is_prime", "-7"),
     ("value", "pi", "10**10**10"),
-    ("value", "pi", "10", "--budget", "-1"),
-])
+])                      # --budget -1 is an option range error now: tests/test_audit_cli.py
 def test_bad_input_is_one_line_and_exit_2(capsys, argv):
     code, out, err = run(capsys, *argv)
     assert code == 2

@@ -25,6 +25,8 @@ def test_demo_finds_exactly_the_documented_defects_and_writes_the_reports(tmp_pa
     assert divergence["prime_pi"]["input"] == [2**20]        # pi(2^20) = 82025, OEIS A007053
     assert divergence["twin_pi"]["input"] == [5]
     assert divergence["is_prime"]["input"] == [3215031751]   # OEIS A014233: spsp to bases 2, 3, 5, 7
+    assert divergence["factor"]["input"] == [1194649]        # 1093**2, OEIS A001262 and A001220
+    assert divergence["primes_in"]["prime"] == 131071        # 2**17 - 1, the first prime lost
     page = (tmp_path / "out" / "report.html").read_text()
     assert page.count("data:image/png;base64,") >= 7
     assert "http://" not in page and "https://" not in page and "<script" not in page

@@ -340,6 +340,13 @@ def test_plugin_loads_through_the_entry_point(pytester):
     ("role: is_prime\ntarget: mylib.is_prime\ncases: []\n", 2, "expected package.module:function"),
     ("role: is_prime\nconventions: {colour: red}\ncases:\n  - name: a\n    values: [1]\n", 2,
      "conventions: expected keys among"),
+    ("role: is_prime\ntimeout: .inf\ncases:\n  - name: a\n    values: [1]\n", 2,
+     "must be a finite number of seconds"),
+    ("role: is_prime\ntimeout: .nan\ncases:\n  - name: a\n    values: [1]\n", 2,
+     "must be a finite number of seconds"),
+    ("role: is_prime\ntimeout: 1.0e+20\ncases:\n  - name: a\n    values: [1]\n", 2,
+     "<= 86400"),
+    ("role: is_prime\ntimeout: 0\ncases:\n  - name: a\n    values: [1]\n", 2, "> 0"),
 ])
 def test_malformed_suites_name_the_line_and_the_problem(text, line, problem):
     with pytest.raises(SuiteError) as raised:
@@ -373,3 +380,87 @@ def test_bundled_suites_cover_every_family_of_every_role():
 def test_settings_names_agree_with_the_library():
     assert _settings.PROFILE_NAMES == tuple(sampling.PROFILES)
     assert set(_settings.ROLE_NAMES) == set(roles.ROLES)
+
+
+# -- suites are read with limits (issue 11) -------------------------------------- #
+
+def alias_bomb(levels: int = 9, width: int = 9) -> str:
+    """A "billion laughs" suite: each anchor lists the previous one ``width`` times, so the
+    last expands to width**levels scalars (9**9 = 387,420,489) from a few hundred bytes."""
+    lines = ["role: is_prime", "l0: &l0 [" + ",".join(["lol"] * width) + "]"]
+    for level in range(1, levels):
+        lines.append(f"l{level}: &l{level} [" + ",".join([f"*l{level - 1}"] * width) + "]")
+    lines.append(f"cases: *l{levels - 1}")
+    return "\n".join(lines) + "\n"
+
+
+def test_an_alias_bomb_suite_is_refused_naming_the_file(tmp_path):
+    text = alias_bomb()
+    assert len(text.encode()) < 500 and text.count("*l") == 8 * 9 + 1
+    path = tmp_path / "bomb.ntoracle.yaml"
+    path.write_text(text)
+    for call in (lambda: load_suite(path), lambda: parse_suite(text, str(path))):
+        with pytest.raises(SuiteError) as raised:
+            call()
+        assert str(raised.value).startswith(f"{path}:")
+        assert "aliases expanded" in raised.value.problem
+    deep = "role: is_prime\ncases: " + "[" * 200 + "]" * 200 + "\n"
+    with pytest.raises(SuiteError) as raised:
+        parse_suite(deep, "deep.ntoracle.yaml")
+    assert raised.value.line == 2 and "levels deep" in raised.value.problem
+
+
+def test_a_huge_suite_is_refused_before_it_is_parsed(tmp_path):
+    from oracle.pytest_support._suites import MAX_SUITE_BYTES
+
+    path = tmp_path / "huge.ntoracle.yaml"
+    case = "  - {name: c%08d, values: [2]}\n"
+    with path.open("w") as handle:
+        handle.write("role: is_prime\ncases:\n")
+        for index in range(50 * 2**20 // len(case % 0)):
+            handle.write(case % index)
+    assert path.stat().st_size > 50 * 10**6
+    with pytest.raises(SuiteError) as raised:
+        load_suite(path)
+    assert str(raised.value).startswith(f"{path}: ") and f"limit of {MAX_SUITE_BYTES}" in str(raised.value)
+    with pytest.raises(SuiteError):
+        parse_suite("role: is_prime\n#" + "x" * MAX_SUITE_BYTES + "\n", "long.ntoracle.yaml")
+
+
+def test_bomb_and_huge_suites_are_error_items_and_the_session_goes_on(project):
+    project.makefile(".ntoracle.yaml", bomb=alias_bomb())
+    huge = project.path / "huge.ntoracle.yaml"
+    with huge.open("w") as handle:
+        handle.write("role: is_prime\ncases:\n")
+        handle.write("  - {name: a, values: [2]}\n" * (2 * 2**20 // 26 + 1))
+    project.makefile(".ntoracle.yaml", fine="role: is_prime\ntarget: good_prime:is_prime\n"
+                                            "cases:\n  - name: a\n    values: [29341]\n")
+    project.makepyfile(test_other="def test_still_runs():\n    assert True\n")
+    result = project.runpytest(*PLUGIN, "-v")
+    result.assert_outcomes(passed=2, errors=2)
+    result.stdout.fnmatch_lines_random([
+        "bomb.ntoracle.yaml::suite-error ERROR*",
+        "huge.ntoracle.yaml::suite-error ERROR*",
+        "malformed ntoracle suite: *bomb.ntoracle.yaml:*: more than * nodes with its aliases expanded*",
+        "malformed ntoracle suite: *huge.ntoracle.yaml: * bytes, more than the limit of *",
+    ])
+
+
+def test_huge_answers_in_hand_written_checks_fail_with_a_bounded_message(project):
+    project.makepyfile(test_huge='''
+        def test_huge_integer(ntoracle_check):
+            ntoracle_check.answer("prime_pi", 10**6, 10**100000)
+
+        def test_huge_text(ntoracle_check):
+            ntoracle_check.answer("is_prime", 7, "y" * (10 * 2**20))
+
+        def test_huge_listing(ntoracle_check):
+            ntoracle_check("primes_in", lambda a, b: list(range(10**5)), [(0, 10)])
+    ''')
+    result = project.runpytest(*PLUGIN, "--ntoracle-seed", "9")
+    result.assert_outcomes(failed=3)
+    output = result.stdout.str()
+    assert "prime_pi(1000000): wrong (size)" in output and "an integer of 100001 digits" in output
+    assert "is_prime(7): wrong-type (type)" in output and "(10485760 characters)" in output
+    assert "primes_in(0, 10): wrong (listing)" in output and "(100000 items in all)" in output
+    assert max(len(line) for line in output.splitlines()) < 1000

@@ -26,6 +26,7 @@ from oracle._errors import InvalidInputError
 from oracle.cli import build_parser
 from oracle.demo import SCENARIO
 from oracle.report import _json, _plot_data
+from oracle.report._html import render_html
 
 PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"          # PNG specification, section 5.2
 HOSTILE = "<script>alert(1)</script>"
@@ -419,7 +420,7 @@ def test_reproduce_command_is_understood_by_the_audit_command(failing_prime_pi):
     parsed = build_parser().parse_args(shlex.split(command)[1:])
     assert parsed.command == "audit" and parsed.target == SCENARIO.entry("prime_pi").target
     assert (parsed.role, parsed.profile, parsed.seed, parsed.maximum) == \
-        ("prime_pi", "quick", "7", str(2**24))
+        ("prime_pi", "quick", 7, str(2**24))   # --seed is read as an integer
     assert parsed.timeout == 5.0              # the quick profile's timeout, as recorded
 
 
@@ -433,3 +434,152 @@ def test_reproduce_command_of_an_executable_with_conventions():
                        "--seed 5 --timeout 2.5 --invalid-input raise --half-open")
     parsed = build_parser().parse_args(shlex.split(command)[1:])
     assert parsed.exec_command == "./my_primes --fast" and parsed.half_open
+
+
+# -- a run without a verdict is not said to have failed (issue 11) ------------ #
+
+def _without_end(records):
+    """The records of a run cut before its end record (a torn or killed run)."""
+    return [record for record in records if record.get("type") != "end"]
+
+
+def test_a_run_without_a_verdict_is_never_called_failed(passing_nth_prime, failing_prime_pi):
+    from oracle.report._describe import verdict_of
+
+    records = _without_end(passing_nth_prime[1])
+    summary = engine.summarise(records)
+    assert summary["verdict"] == "no verdict" and not summary["passed"] and not summary["failures"]
+    assert verdict_of(summary) == "no verdict"
+    assert verdict_of(engine.summarise(_without_end(failing_prime_pi[1]))) == "failed"  # findings stay
+    assert verdict_of(failing_prime_pi[0]) == "failed" and verdict_of(passing_nth_prime[0]) == "passed"
+    assert verdict_of(engine.summarise([])) == "no verdict"               # no check at all
+    stream = io.StringIO()
+    report.summary_table(summary, stream, colour=False)
+    row = next(line for line in stream.getvalue().splitlines() if line.strip().startswith("nth_prime"))
+    assert "NO VERDICT" in row and "FAILED" not in row
+    page = render_html([(summary, records), failing_prime_pi])
+    assert "1 audit(s)" not in page and "0 without findings, 1 with findings, 1 without a verdict" in page
+    section = page[page.index('<section id="run-0">'):page.index('<section id="run-1">')]
+    assert '<span class="no-verdict">no verdict</span>' in section and "failed</span>" not in section
+    assert "interrupted before its end" in section
+    parse(page)                                                            # still well formed
+
+
+def test_an_early_stopped_failed_run_is_partial_not_interrupted(failing_prime_pi):
+    summary, records = failing_prime_pi
+    cut = dict(summary, complete=False, not_run=3)
+    section = render_html([(cut, records)])
+    assert "not every point was run" in section and "interrupted before its end" not in section
+
+
+# -- candidate-controlled text is bounded in records and reports (issue 11) ---------- #
+
+HUGE_STRING = "<b>" + "y" * (10 * 2**20)             # 10 MiB and 3 characters of markup
+TEN_MILLION = list(range(10**7))
+LINE_LIMIT = 64 * 2**10
+
+
+def huge_integer_prime_pi(x):
+    return 10**100000 + x                             # 100,001 decimal digits, by definition
+
+
+def huge_string_is_prime(n):
+    return HUGE_STRING
+
+
+def huge_listing_primes_in(a, b):
+    return TEN_MILLION
+
+
+def huge_message_prime_pi(x):
+    raise ValueError("<i>" + "boom" * 2**20)
+
+
+def bounded_run(function, role, path, description):
+    target = targets.InProcessTarget(function, timeout=30.0, description=description)
+    try:
+        summary = engine.run_audit(target, engine.AuditOptions(
+            role=role, profile="quick", seed=3, maximum=50, stream=str(path), stop_after=2))
+    finally:
+        target.close()
+    return summary, engine.read_records(path)
+
+
+@pytest.mark.parametrize("function, role, shown", [
+    (huge_integer_prime_pi, "prime_pi", "an integer of 100001 digits"),
+    (huge_string_is_prime, "is_prime", f"... ({len(HUGE_STRING)} characters)"),
+    (huge_listing_primes_in, "primes_in", "... (10000000 items in all)"),
+    (huge_message_prime_pi, "prime_pi", "ValueError: &lt;i&gt;boomboom"),
+])
+def test_huge_answers_and_messages_give_bounded_records_and_cut_reports(tmp_path, function, role,
+                                                                        shown):
+    description = "huge:" + "<u>" * 100_000                   # a long name with markup
+    summary, records = bounded_run(function, role, tmp_path / "run.jsonl", description)
+    assert summary["verdict"] == "failed" and len(summary["failures"]) >= 2
+    lines = (tmp_path / "run.jsonl").read_bytes().splitlines()
+    assert lines and max(len(line) for line in lines) < LINE_LIMIT
+    assert len(records[0]["target"]) < 2100 and records[0]["target"].startswith("huge:<u><u>")
+    report.write_json(summary, tmp_path / "summary.json")
+    assert all(len(line) < LINE_LIMIT for line in (tmp_path / "summary.json").read_bytes().splitlines())
+    page = render_html([(summary, records)], command="ntoracle audit huge")
+    assert "<u>" not in page and "<b>y" not in page and "<i>boom" not in page  # escaped
+    assert shown in page and len(page) < 2 * 2**20
+    stream = io.StringIO()
+    report.summary_table(summary, stream, colour=False)
+    assert len(stream.getvalue()) < 20_000
+
+
+def test_huge_integer_answer_is_wrong_and_described_by_its_digits(tmp_path):
+    summary, records = bounded_run(huge_integer_prime_pi, "prime_pi", tmp_path / "r.jsonl", "huge")
+    failure = summary["failures"][0]
+    assert (failure["status"], failure["check"]) == ("wrong", "size")
+    assert failure["got"] == "an integer of 100001 digits"
+    assert summary["first_divergence"]["got"] == "an integer of 100001 digits"
+
+
+def test_huge_listing_is_cut_in_the_record_but_localised_on_the_whole_answer(tmp_path):
+    summary, records = bounded_run(huge_listing_primes_in, "primes_in", tmp_path / "r.jsonl", "huge")
+    failure = summary["failures"][0]
+    got = failure["got"]
+    assert got[:3] == [0, 1, 2] and got[-1].endswith("(10000000 in all)")
+    kept = len(got) - 1
+    assert got[-1] == f"... and {10**7 - kept} more (10000000 in all)"
+    divergence = summary["first_divergence"]                  # 0 is listed, and 0 is not prime
+    assert divergence["kind"] == "first extra prime" and divergence["prime"] == 0
+
+
+def test_digit_counts_from_the_bit_length_agree_with_the_decimal_text():
+    import random
+
+    from oracle._bounded import describe_integer, integer_digits
+
+    rng = random.Random(11)
+    numbers = [0, 1, 9, 10, 99, 100, -1, -10]
+    for k in range(1, 4200, 37):
+        numbers += [10**k - 1, 10**k, 10**k + 1, -(10**k), rng.randrange(10**k), 2**k, 2**k - 1]
+    for number in numbers:
+        assert integer_digits(number) == len(str(abs(number))), number   # str: under 4300 digits
+    assert describe_integer(10**100000) == "an integer of 100001 digits"
+    assert describe_integer(-(10**99999) + 1) == "a negative integer of 99999 digits"
+
+
+def test_bounded_text_and_values_never_raise_and_stay_within_their_limits():
+    from oracle._bounded import TEXT_LIMIT, VALUE_LIMIT, bounded_text, bounded_value
+    from oracle.engine._records import jsonable
+
+    class Hostile:
+        def __repr__(self):
+            raise RuntimeError("no repr for you")
+
+    assert bounded_text(Hostile()) == "<Hostile object>"
+    assert bounded_text([10**5000, Hostile()]) == "[<an integer of 5001 digits>, <Hostile object>]"
+    assert bounded_text("x" * 5000, 10) == "xxxxxxxxxx... (5000 characters)"
+    assert bounded_text(bounded_text("x" * 5000, 100), 10) == "xxxxxxxxxx... (5000 characters)"
+    assert len(bounded_text(list(range(10**6)))) <= TEXT_LIMIT + 3
+    nested = [[10**4100 + i for i in range(100)] for _ in range(100)]
+    kept = json.dumps(bounded_value(nested))
+    assert len(kept) < VALUE_LIMIT + 5000                       # 4 integers of 4101 digits
+    assert kept.endswith('"... and 96 more (100 in all)"], "... and 99 more (100 in all)"]')
+    assert bounded_value({2: 3, 5: 1}) == {"2": 3, "5": 1}       # a factorisation's primes as keys
+    assert bounded_value((1, 2.5, None, True)) == [1, "2.5", None, True]
+    assert jsonable(2**64 + 13) == 2**64 + 13             # exact, as the JSON report promises

@@ -449,9 +449,32 @@ def test_unverifiable_entries_are_sourced_and_within_proven_bounds(record_proper
         entry = next(e for e in source_table.entries if e.argument == argument)
         if entry.from_memory:
             assert entry.note, f"{table_id}:{argument} is from memory and says nothing more"
-    # The bounds and cross-table tests in this file cover these entries too: π within
-    # Rosser-Schoenfeld and monotone across both π tables, p_n within Dusart /
-    # Rosser-Schoenfeld and interleaved with π, π₂ bounded by π.
+        lower, upper = _proven_interval(source_table.function, argument)
+        assert lower <= entry.value <= upper, (table_id, argument, "outside the proven interval")
+    checked = [a for t, a, _ in unverifiable
+               if tables.table(t).function in ("pi", "twin_pi", "nth_prime")]
+    assert checked, "no unverifiable count or n-th prime was held to a bound"
+
+
+def _proven_interval(function: str, argument: int) -> tuple:
+    """A proven interval for the value of ``function`` at ``argument``, computed here with mpmath
+    from the statements (not from the oracle's bounds module, which this would then only repeat):
+    Rosser & Schoenfeld 1962, Illinois J. Math. 6, Thm 1 and Cor. 1: x/ln x < π(x) for x >= 17
+    and π(x) < 1.25506 x/ln x for x > 1; π₂(x) <= π(x); Dusart 1999, Math. Comp. 68, 411-415:
+    p_n > n(ln n + ln ln n - 1) for n >= 2, and Rosser & Schoenfeld (3.13): p_n < n(ln n + ln ln n)
+    for n >= 6 (statements from memory).  Other tables: no interval (defining properties are
+    checked by the tests above)."""
+    with mpmath.workdps(60):
+        x = mpmath.mpf(argument)
+        if function in ("pi", "twin_pi") and argument >= 17:
+            upper = int(mpmath.floor(mpmath.mpf("1.25506") * x / mpmath.log(x)))
+            lower = int(mpmath.ceil(x / mpmath.log(x))) if function == "pi" else 0
+            return lower, upper
+        if function == "nth_prime" and argument >= 6:
+            log_n = mpmath.log(x)
+            return (int(mpmath.ceil(x * (log_n + mpmath.log(log_n) - 1))),
+                    int(mpmath.floor(x * (log_n + mpmath.log(log_n)))))
+    return -math.inf, math.inf
 
 
 def test_merged_pi_values_are_monotone_across_tables():

@@ -31,17 +31,19 @@ def exec_pi(tmp_path):
 
 
 def test_in_process_call_exception_and_timeout():
-    target = targets.python_target("_candidates:prime_pi_slow", role_name="prime_pi", timeout=0.2)
+    target = targets.python_target("_candidates:prime_pi_slow", role_name="prime_pi", timeout=0.2,
+                                   isolate=False)
     ok, slow = target.call_many([(100,), (10**6,)])
     assert ok.status == targets.OK and ok.value == 25          # OEIS A006880: pi(100) = 25
     assert slow.status == targets.TIMEOUT
-    raised = targets.python_target("math:isqrt", role_name="prime_pi", timeout=1).call_many([(-1,)])[0]
+    raised = targets.python_target("math:isqrt", role_name="prime_pi", timeout=1,
+                                   isolate=False).call_many([(-1,)])[0]
     assert raised.status == targets.RAISED and "ValueError" in raised.error
 
 
 def test_generators_are_consumed_inside_the_call():
     target = targets.python_target("builtins:range", role_name="primes_in", timeout=1)
-    assert target.call_many([(3,)])[0].value == range(3)
+    assert target.call_many([(3,)])[0].value == [0, 1, 2]      # a range arrives as its list
     gen = targets.python_target("itertools:repeat", role_name="primes_in", timeout=1)
     assert gen.call_many([(7, 2)])[0].value == [7, 7]
 
@@ -51,7 +53,7 @@ def test_executable_survives_crash_hang_and_refusal(exec_pi):
     assert [r.status for r in results] == ["ok", "crashed", "ok", "timeout", "ok", "raised"]
     assert [results[0].value, results[2].value, results[4].value] == [4, 25, 168]   # OEIS A006880
     assert "SIGSEGV" in results[1].error
-    assert exec_pi.restarts == 2
+    assert exec_pi.restarts >= 2     # a batch that faults is asked again one request at a time
 
 
 def test_isolated_python_target_keeps_types_and_contains_a_crash():
@@ -89,8 +91,8 @@ def test_bad_target_names_refused(spec):
 def test_text_protocol_decoding():
     from oracle.targets._protocol import decode_text_answer
 
-    assert decode_text_answer("is_prime", b"true") == (False, True)
-    assert decode_text_answer("primes_in", b"") == (False, [])
-    assert decode_text_answer("factor", b"2^2 3") == (False, [(2, 2), (3, 1)])
-    assert decode_text_answer("prime_pi", b"3.5") == (False, "3.5")
+    assert decode_text_answer("is_prime", b"true") == (False, True, None)
+    assert decode_text_answer("primes_in", b"") == (False, [], None)
+    assert decode_text_answer("factor", b"2^2 3") == (False, [(2, 2), (3, 1)], None)
+    assert decode_text_answer("prime_pi", b"3.5") == (False, "3.5", None)
     assert decode_text_answer("prime_pi", b"error: x too big")[0] is True

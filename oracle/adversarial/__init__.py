@@ -32,7 +32,7 @@ from ._near_powers import (WORD_BOUNDARIES, float_square_root_traps, near_square
 from ._semiprimes import balanced_semiprimes, close_prime_products, unbalanced_semiprimes
 from ._smooth import smooth_numbers_between, smooth_numbers_up_to
 from ._strong_pseudoprimes import (LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES,
-                                   STRONG_PSEUDOPRIMES_BASE_2,
+                                   STRONG_PSEUDOPRIMES_BASE_2, WIEFERICH_PRIMES,
                                    STRONG_PSEUDOPRIMES_BASES_2_3_5_7,
                                    constructed_strong_pseudoprimes, strong_pseudoprimes_below)
 from ._twins import twin_boundary_points, twin_pairs_around_power_of_two
@@ -66,6 +66,7 @@ __all__ = [
     "smooth_numbers_up_to",
     "LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES",
     "STRONG_PSEUDOPRIMES_BASE_2",
+    "WIEFERICH_PRIMES",
     "STRONG_PSEUDOPRIMES_BASES_2_3_5_7",
     "constructed_strong_pseudoprimes",
     "strong_pseudoprimes_below",

@@ -43,13 +43,29 @@ __all__ = [
     "LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES",
     "STRONG_PSEUDOPRIMES_BASES_2_3_5_7",
     "strong_pseudoprimes_below",
+    "WIEFERICH_PRIMES",
     "constructed_strong_pseudoprimes",
 ]
 
-#: OEIS A001262, strong pseudoprimes to base 2, first 12 terms (from memory;
-#: the tests re-derive them by exhaustive search).
-STRONG_PSEUDOPRIMES_BASE_2 = (2047, 3277, 4033, 4681, 8321, 15841, 29341,
-                              42799, 49141, 52633, 65281, 74665)
+#: OEIS A001262, strong pseudoprimes to base 2: every term below 2 * 10**6 (73 terms; the
+#: first 12 from memory, all of them re-derived by exhaustive search in the tests).  Among them
+#: 1194649 = 1093**2, a square: p**2 is a base-2 pseudoprime exactly when p is a Wieferich
+#: prime (OEIS A001220: 1093 and 3511 are the only ones known; from memory).
+STRONG_PSEUDOPRIMES_BASE_2 = (2047, 3277, 4033, 4681, 8321, 15841, 29341, 42799, 49141,
+                              52633, 65281, 74665, 80581, 85489, 88357, 90751, 104653,
+                              130561, 196093, 220729, 233017, 252601, 253241, 256999,
+                              271951, 280601, 314821, 357761, 390937, 458989, 476971,
+                              486737, 489997, 514447, 580337, 635401, 647089, 741751,
+                              800605, 818201, 838861, 873181, 877099, 916327, 976873,
+                              983401, 1004653, 1016801, 1023121, 1082401, 1145257,
+                              1194649, 1207361, 1251949, 1252697, 1302451, 1325843,
+                              1357441, 1373653, 1397419, 1441091, 1493857, 1507963,
+                              1509709, 1530787, 1678541, 1730977, 1811573, 1876393,
+                              1907851, 1909001, 1969417, 1987021)
+
+#: OEIS A001220, the Wieferich primes known (2**(p-1) = 1 mod p**2); their squares are
+#: strong pseudoprimes to base 2 that a Lucas-type test without a square check mishandles.
+WIEFERICH_PRIMES = (1093, 3511)
 
 #: OEIS A014233, the least odd composite that is a strong pseudoprime to all
 #: of the first k prime bases, k = 1..13 (k = 12, 13: Sorenson and Webster

@@ -63,7 +63,8 @@ def run_demo(report_dir: str | Path = "ntoracle-report", *, seed: int = DEMO_SEE
     print(f"\nreports: {folder / 'report.html'}, {folder / 'audit.json'} "
           f"(results as JSON lines: {folder}/<role>.jsonl); {time.perf_counter() - started:.1f} s",
           file=out)
-    problems = SCENARIO.discrepancies({s["role"]: s["passed"] for s in summaries})
+    problems = SCENARIO.discrepancies({s["role"]: s["passed"] for s in summaries},
+                                      {s["role"]: first_wrong_input(s) for s in summaries})
     if problems:
         print("\nThe audit did NOT match the scenario:", file=out)
         for problem in problems:
@@ -75,10 +76,20 @@ def run_demo(report_dir: str | Path = "ntoracle-report", *, seed: int = DEMO_SEE
     return 0
 
 
+def first_wrong_input(summary: dict) -> int | None:
+    """The first wrong input the audit localised: the first divergence's input (its first
+    argument), or for primes_in the first prime missing or extra."""
+    divergence = summary.get("first_divergence") or {}
+    if "prime" in divergence:
+        return divergence["prime"]
+    where = divergence.get("input")
+    return where[0] if where else None
+
+
 def _print_role(out: TextIO, role: str, entry, summary: dict) -> None:
     from ..report import describe_divergence
 
-    verdict = "PASSED" if summary["passed"] else "FAILED"
+    verdict = {"passed": "PASSED", "failed": "FAILED"}.get(summary.get("verdict"), "NO VERDICT")
     print(f"{role:<11} {verdict}  {summary['passed_checks']}/{summary['checks']} checks, "
           f"{len(summary['failures'])} finding(s), {summary['timings']['total_seconds']:.1f} s",
           file=out)

@@ -5,7 +5,8 @@ ordinary input (where it is right) and ``first_wrong``: the smallest input at
 which the role goes wrong -- for primes_in, the smallest prime it loses.  An
 audit's first divergence lands exactly there for the counting roles (by
 bisection) and for primes_in; for is_prime and factor it is the smallest
-failing *sampled* input, so at or above ``first_wrong``.  ``maximum`` is the
+failing *sampled* input, which the pseudoprime families make ``first_wrong``
+itself; the demo's success check compares it.  ``maximum`` is the
 domain the target declares (the audit's ``--max``): checks above it are
 skipped, never passed.
 """
@@ -64,18 +65,26 @@ class Scenario:
                 return entry
         raise KeyError(role)
 
-    def discrepancies(self, passed: dict[str, bool]) -> list[str]:
+    def discrepancies(self, passed: dict[str, bool],
+                      first_wrong: dict[str, int | None] | None = None) -> list[str]:
         """What an audit found that the scenario does not document, one sentence each.
 
-        ``passed`` maps each role to whether its audit passed.  The list is empty
-        exactly when every defective role failed and every sound role passed.
+        ``passed`` maps each role to whether its audit passed; ``first_wrong``, when given,
+        to the first wrong input the audit localised (the first divergence's input, or for
+        primes_in the first lost prime).  The list is empty exactly when every defective
+        role failed at its documented ``first_wrong`` and every sound role passed.
         """
         problems = []
         for role in self.roles():
+            entry = self.entry(role)
             if role not in passed:
                 problems.append(f"{role}: not audited")
-            elif isinstance(self.entry(role), Defect) and passed[role]:
+            elif isinstance(entry, Defect) and passed[role]:
                 problems.append(f"{role}: the documented defect was not found")
+            elif isinstance(entry, Defect) and first_wrong is not None \
+                    and first_wrong.get(role) != entry.first_wrong:
+                problems.append(f"{role}: first wrong input {first_wrong.get(role)}, documented "
+                                f"{entry.first_wrong}")
             elif isinstance(self.entry(role), SoundRole) and not passed[role]:
                 problems.append(f"{role}: documented as correct, but the audit failed")
         problems.extend(f"{role}: not part of the scenario" for role in passed

@@ -22,9 +22,13 @@ counts it (``garbled_lines`` of the summary); it never stops early.
 stream has no ``end`` record or no check was completed, else ``passed``;
 ``passed`` is true only for the verdict ``passed``.  ``complete`` is false
 whenever points were not run for the time budget, the early stop, crashes,
-timeouts, an interruption or a missing ``end`` (skips above the declared
-domain and out of the oracle's reach are reported, but do not make a run
-incomplete); ``not_run`` counts the points that made it so.
+hangs, an interruption or a missing ``end`` (skips above the declared
+domain, out of the oracle's reach and beyond the candidate's speed are
+reported, but do not make a run incomplete); ``not_run`` counts the points
+that made it so.  ``too_slow`` counts the calls too slow (failures only when
+the start record says ``slow_fails``); ``reach`` gives, per family, the
+largest input checked and why it went no higher (:func:`reach`).  A ``reach``
+record names a family and the reason it stopped.
 """
 
 from __future__ import annotations
@@ -35,7 +39,10 @@ import os
 import shutil
 from pathlib import Path
 
-__all__ = ["FAILURE_STATUSES", "RecordStream", "Records", "read_records", "summarise", "jsonable",
+from .._bounded import bounded_value
+
+__all__ = ["FAILURE_STATUSES", "failure_statuses", "RecordStream", "Records", "read_records",
+           "summarise", "jsonable",
            "new_run_path", "point_to_latest", "VERDICTS", "SKIPS_KEEPING_COMPLETE"]
 
 #: The verdicts of a summary.
@@ -45,26 +52,32 @@ VERDICTS = ("passed", "failed", "no verdict")
 #: oracle's own reach (both reported), and the rest of the invalid inputs after a hang there
 #: (a finding already).
 SKIPS_KEEPING_COMPLETE = ("above the declared domain (--max)", "out of the oracle's reach",
-                           "outside the domain, after a hang there")
+                           "outside the domain, after a hang there",
+                           "beyond the candidate's speed (too slow)")
 
-#: Statuses of a check that count as findings against the candidate.
-FAILURE_STATUSES = ("wrong", "wrong-type", "raised", "too-slow", "crashed", "nondeterministic")
+#: Statuses of a check that count as findings against the candidate.  A call ``too-slow``
+#: (:mod:`oracle.engine._timeouts`) is the limit of the candidate's reach, not a finding,
+#: unless the run was asked to fail on it (``slow_fails``).
+FAILURE_STATUSES = ("wrong", "wrong-type", "raised", "hung", "crashed", "bad-output",
+                    "nondeterministic", "tampered")
+
+#: Families of checks that are not inputs of their own (their sizes say nothing of reach).
+_NOT_REACH = ("identity", "reask", "bisection", "invalid-input")
+
+
+def failure_statuses(slow_fails: bool) -> tuple[str, ...]:
+    """The statuses counted as failures; ``too-slow`` among them only with ``slow_fails``."""
+    return FAILURE_STATUSES + ("too-slow",) if slow_fails else FAILURE_STATUSES
 
 
 def jsonable(value: object) -> object:
-    """A JSON-able form of a value: tuples become lists, anything unusual its repr."""
+    """A bounded JSON-able form of a value (:func:`oracle._bounded.bounded_value`): tuples become
+    lists, floats and unusual objects bounded text, long strings, lists and mappings are cut
+    and say so, an integer of more than 4200 digits is described by its number of digits."""
     kind = type(value)
-    if kind is int or kind is bool or kind is str:
+    if kind is bool or value is None or (kind is int and value.bit_length() <= 4096):
         return value
-    if value is None or isinstance(value, (bool, int, str)):
-        return value
-    if isinstance(value, float):
-        return repr(value)
-    if isinstance(value, (list, tuple)):
-        return [jsonable(item) for item in value]
-    if isinstance(value, dict):
-        return {str(key): jsonable(item) for key, item in value.items()}
-    return repr(value)
+    return bounded_value(value)
 
 
 class RecordStream:
@@ -162,7 +175,7 @@ def summarise(records: list[dict]) -> dict:
     """The audit summary (README, ``audit --json``) computed from the records of a run."""
     start = next((r for r in records if r.get("type") == "start"), {})
     checks = [r for r in records if r.get("type") == "check"]
-    failures = [r for r in checks if r["status"] in FAILURE_STATUSES]
+    failures = [r for r in checks if r["status"] in failure_statuses(bool(start.get("slow_fails")))]
     skipped = {}
     for record in records:
         if record.get("type") == "skipped":
@@ -204,4 +217,33 @@ def summarise(records: list[dict]) -> dict:
         "ended": end is not None,
         "interrupted": None if interrupted is None else interrupted.get("reason"),
         "garbled_lines": getattr(records, "garbled", 0),
+        "too_slow": sum(1 for r in checks if r["status"] == "too-slow"),
+        "reach": reach(records),
     }
+
+
+def reach(records: list[dict]) -> dict:
+    """Per family of inputs, the largest input checked and why the family went no higher.
+
+    ``{family: {"largest": m, "stopped": reason}}``: ``m`` is the largest magnitude (largest
+    argument) answered and judged, ``null`` when none was; the reason comes from the
+    family's ``reach`` record -- the profile's ceiling, a skip reason, or a reason of the
+    climb (:mod:`oracle.engine._reach`) -- and is "candidate speed" when a call of the
+    family was too slow.
+    """
+    found: dict[str, dict] = {}
+    for record in records:
+        if record.get("type") == "reach" and isinstance(record.get("family"), str):
+            found.setdefault(record["family"], {"largest": None, "stopped": None})
+            found[record["family"]]["stopped"] = record.get("stopped")
+    for record in records:
+        if record.get("type") != "check" or record.get("family") in _NOT_REACH:
+            continue
+        entry = found.setdefault(record["family"], {"largest": None, "stopped": None})
+        if record["status"] == "too-slow":
+            entry["stopped"] = "candidate speed"
+        elif record["status"] not in ("hung", "crashed") and record["arguments"] \
+                and all(type(a) is int for a in record["arguments"]):
+            size = max(record["arguments"])
+            entry["largest"] = size if entry["largest"] is None else max(entry["largest"], size)
+    return found

@@ -59,6 +59,7 @@ class Checker:
 
     def answer(self, role: str, arguments, got, *, conventions: dict | None = None) -> dict:
         from .. import roles
+        from .._bounded import bounded_text, bounded_value
         from .._errors import OutOfReachError
 
         chosen = roles.get(role)
@@ -69,7 +70,9 @@ class Checker:
         try:
             value = chosen.normalise(got, rules)
         except roles.WrongType as error:
-            failure.update(status="wrong-type", check="type", got=repr(got)[:200], detail=str(error))
+            status, check = ("wrong", "size") if isinstance(error, roles.AbsurdAnswer) else ("wrong-type", "type")
+            failure.update(status=status, check=check, got=bounded_text(got, 200),
+                           detail=bounded_text(str(error)))
         else:
             try:
                 verdict = chosen.judge(arguments, value, rules, 10.0)
@@ -79,9 +82,9 @@ class Checker:
                 pytest.skip(f"{role}{arguments}: no reference within the oracle's reach")
             if verdict.passed:
                 return {"passed": True, "checks": 1, "failures": []}
-            failure.update(status="wrong", check=verdict.check, got=value,
-                           expected=verdict.expected, provenance=verdict.provenance,
-                           detail=verdict.detail)
+            failure.update(status="wrong", check=verdict.check, got=bounded_value(value),
+                           expected=bounded_value(verdict.expected), provenance=verdict.provenance,
+                           detail=bounded_text(verdict.detail))
         summary = {"passed": False, "checks": 1, "failures": [failure], "first_divergence": None,
                    "skipped": {}}
         pytest.fail(failure_message(summary, role=role, target="the answer given", case="answer",

@@ -69,17 +69,17 @@ class CallableTarget:
         self.function = function
         self.description = description or getattr(function, "__qualname__", repr(function))
 
-    def call_many(self, calls) -> list[CallResult]:
+    def call_many(self, calls, *, stop_on_fault: bool = False) -> list[CallResult]:
         return [self._call(arguments) for arguments in calls]
 
     def _call(self, arguments) -> CallResult:
         started = time.perf_counter()
+        from ..targets._worker import bounded_answer, describe_exception
+
         try:
-            value = self.function(*arguments)
-            if hasattr(value, "__next__"):
-                value = list(value)
+            value = bounded_answer(self.function(*arguments))
         except Exception as error:
-            return CallResult(RAISED, error=f"{type(error).__name__}: {error}"[:300],
+            return CallResult(RAISED, error=describe_exception(error),
                               seconds=time.perf_counter() - started)
         return CallResult(OK, value, seconds=time.perf_counter() - started)
 

@@ -15,8 +15,12 @@ _WIDTH = 120
 
 
 def _short(value: object) -> str:
-    text = str(value).lower() if isinstance(value, bool) else str(value)
-    return text if len(text) <= _WIDTH else text[:_WIDTH - 3] + "..."
+    """``value`` in at most about :data:`_WIDTH` characters, saying how large a cut one was."""
+    from ..report._describe import show_value
+
+    if value is None:
+        return "None"
+    return show_value(value, _WIDTH - 3)
 
 
 def _call(role: str, arguments) -> str:

@@ -47,8 +47,9 @@ def bundled_suite_paths() -> list:
 class TargetPool:
     """The targets of this process, made on first use and closed at the end of the session."""
 
-    def __init__(self):
+    def __init__(self, *, in_process: bool = False):
         self._targets: dict[tuple, object] = {}
+        self.in_process = in_process
 
     def get(self, kind: str, spec: str, role: str, timeout: float):
         from .. import targets
@@ -56,7 +57,8 @@ class TargetPool:
         key = (kind, spec, role, timeout)
         if key not in self._targets:
             if kind == "python":
-                self._targets[key] = targets.python_target(spec, role_name=role, timeout=timeout)
+                self._targets[key] = targets.python_target(spec, role_name=role, timeout=timeout,
+                                                           isolate=not self.in_process)
             else:
                 self._targets[key] = targets.exec_target(spec, role_name=role, timeout=timeout)
         return self._targets[key]
@@ -219,7 +221,8 @@ class CheckItem(pytest.Item):
         profile = sampling.profile(suite.profile or settings.profile)
         timeout = suite.timeout or profile.timeout
         try:
-            target = self.config.stash.setdefault(POOL, TargetPool()).get(setting.kind, setting.spec, suite.role, timeout)
+            pool = self.config.stash.setdefault(POOL, TargetPool(in_process=settings.in_process))
+            target = pool.get(setting.kind, setting.spec, suite.role, timeout)
         except InvalidInputError as error:
             pytest.fail(f"ntoracle: {setting.source}: {error}", pytrace=False)
         points = self.group.arguments(roles.get(suite.role).arity)
@@ -239,6 +242,9 @@ class CheckItem(pytest.Item):
         reasons = "; ".join(f"{count} point(s): {reason}" for reason, count in summary["skipped"].items())
         if summary["checks"] == 0:
             pytest.skip(f"no point checked ({reasons or 'no points'}); skipped, not passed")
+        if summary.get("too_slow"):                # the limit of the target's reach, not a defect
+            pytest.skip(f"{summary['too_slow']} call(s) too slow (no answer within {timeout} s, "
+                        f"after calls at smaller sizes grew slower); skipped, not passed")
         if reasons:
             warnings.warn(PointsNotRun(f"{self.nodeid}: not run, so not passed: {reasons}"))
 

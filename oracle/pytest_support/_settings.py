@@ -61,6 +61,7 @@ class Settings:
     seed_source: str = "drawn at random"
     report_dir: str | None = None
     hypothesis_profile: str | None = None
+    in_process: bool = False        # call Python targets in the pytest process (trusting them)
     errors: tuple[str, ...] = field(default=())
 
     @property
@@ -160,6 +161,8 @@ def resolve(config, *, inherited_seed: int | None = None) -> Settings:
 
     hypothesis_profile = (config.getoption("ntoracle_hypothesis_profile")
                           or _ini(config, "ntoracle_hypothesis_profile"))
+    in_process = bool(config.getoption("ntoracle_in_process")) or bool(config.getini("ntoracle_in_process"))
     return Settings(targets=tuple(targets), profile=profile, seed=seed, seed_source=seed_source,
                     report_dir=config.getoption("ntoracle_report"),
-                    hypothesis_profile=hypothesis_profile, errors=tuple(errors))
+                    hypothesis_profile=hypothesis_profile, in_process=in_process,
+                    errors=tuple(errors))

@@ -33,23 +33,31 @@ so pytest-xdist can spread them.  Random points are drawn from the session
 seed, the suite name and the case name, so every worker draws the same points.
 
 A malformed suite raises :class:`SuiteError`, which names the file, the line
-and the problem.
+and the problem.  Suites are read with limits (:mod:`oracle._safe_yaml`): at
+most :data:`MAX_SUITE_BYTES` bytes, and the alias, expansion and depth limits
+of :func:`oracle._safe_yaml.check_limits`, checked on the event stream before
+anything is built, so an alias bomb or a huge file is refused at once.
 """
 
 from __future__ import annotations
 
 import dataclasses
 import random
+import re
 from dataclasses import dataclass
 
 import yaml
 
+from .. import _safe_yaml
 from .._errors import InvalidInputError
 from .._integers import parse_integer, require_int
+from .._options import positive_seconds
 from ._settings import PROFILE_NAMES, PYTHON_SPEC, ROLE_NAMES
 
 __all__ = ["SuiteError", "Case", "Suite", "Group", "load_suite", "parse_suite", "groups_of"]
 
+#: Largest suite file, in bytes (a suite is a page of YAML; the bundled ones are a few KiB).
+MAX_SUITE_BYTES = 1 * 2**20
 #: Points per item unless a case says otherwise.
 DEFAULT_SEGMENT = 500
 RANGE_SEGMENT = 1000
@@ -147,7 +155,20 @@ class _Located:
         return self.line
 
 
+def _limits_error(error: InvalidInputError, path) -> SuiteError:
+    """A :mod:`oracle._safe_yaml` refusal (``name: [line N: ]problem``) as a SuiteError."""
+    found = re.match(r"(?:line (\d+): )?(.*)\Z", str(error).removeprefix(f"{path}: "), re.S)
+    line = int(found.group(1)) if found.group(1) else None
+    return SuiteError(path, line, found.group(2))
+
+
 def _compose(text: str, path) -> _Located:
+    if len(text) > MAX_SUITE_BYTES:         # characters: at least as many bytes
+        raise SuiteError(path, None, f"more than the limit of {MAX_SUITE_BYTES} bytes for a suite")
+    try:
+        _safe_yaml.check_limits(text, name=str(path))
+    except InvalidInputError as error:
+        raise _limits_error(error, path) from None
     try:
         node = yaml.compose(text, Loader=yaml.SafeLoader)
     except yaml.MarkedYAMLError as error:
@@ -185,10 +206,9 @@ def _integer(located: _Located, what: str, path, *, minimum: int | None = None) 
 def load_suite(path) -> Suite:
     """Parse the suite file at ``path``."""
     try:
-        with open(path, encoding="utf-8") as handle:
-            text = handle.read()
-    except (OSError, UnicodeDecodeError) as error:
-        raise SuiteError(path, None, f"cannot read the suite: {error}") from None
+        text, _ = _safe_yaml.read_limited(path, max_bytes=MAX_SUITE_BYTES)
+    except InvalidInputError as error:
+        raise _limits_error(error, path) from None
     return parse_suite(text, path)
 
 
@@ -232,10 +252,12 @@ def parse_suite(text: str, path) -> Suite:
         maximum = _integer(located, "max", path, minimum=0)
     timeout = None
     if (located := document.get("timeout")) is not None:
-        if isinstance(located.value, bool) or not isinstance(located.value, (int, float)) \
-                or not located.value > 0:
+        if isinstance(located.value, bool) or not isinstance(located.value, (int, float)):
             raise SuiteError(path, located.line, f"timeout={located.value!r}: expected a positive number")
-        timeout = float(located.value)
+        try:
+            timeout = positive_seconds(located.value, "timeout")
+        except InvalidInputError as error:
+            raise SuiteError(path, located.line, str(error)) from None
     conventions = {}
     if (located := document.get("conventions")) is not None:
         conventions = _conventions(located, path)

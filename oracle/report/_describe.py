@@ -3,8 +3,11 @@
 from __future__ import annotations
 
 import json
+import re
 
-__all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of"]
+from .._bounded import bounded_text, bounded_value
+
+__all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of", "VERDICT_CLASSES"]
 
 #: Longest text shown for one value; longer ones are cut and say how long they were.
 VALUE_LIMIT = 160
@@ -19,12 +22,29 @@ def show_value(value: object, limit: int = VALUE_LIMIT) -> str:
     elif isinstance(value, bool):
         text = "true" if value else "false"
     elif isinstance(value, (list, dict)):
-        text = json.dumps(value, separators=(",", ":"))
+        text = json.dumps(bounded_value(value), separators=(",", ":"))
     else:
-        text = str(value)
+        text = bounded_text(value, max(limit, 40))
     if len(text) > limit:
-        return f"{text[:limit]}... ({len(text)} characters)"
+        return f"{text[:limit]}... ({_whole_size(value, text)})"
     return text
+
+
+_CUT_TEXT = re.compile(r"\.\.\. \((\d+ (?:characters|digits))\)\Z")
+_CUT_LIST = re.compile(r"\.\.\. and \d+ more \((\d+) in all\)\Z")
+
+
+def _whole_size(value: object, text: str) -> str:
+    """How large the candidate's value was: a text or listing already cut when it was recorded
+    (oracle._bounded) says so at its end; otherwise the length of ``text``."""
+    if isinstance(value, str) and (found := _CUT_TEXT.search(value)):
+        return found.group(1)
+    if isinstance(value, list) and value and isinstance(value[-1], str) \
+            and (found := _CUT_LIST.search(value[-1])):
+        return f"{found.group(1)} items in all"
+    if isinstance(value, list):
+        return f"{len(value)} items, {len(text)} characters"
+    return f"{len(text)} characters"
 
 
 def show_arguments(arguments: object) -> str:
@@ -62,8 +82,21 @@ def describe_divergence(divergence: dict | None, limit: int = 40) -> str:
 
 
 def verdict_of(summary: dict) -> str:
-    """``passed``, ``failed``, or ``incomplete`` for a run that stopped before its end
-    without a finding (an incomplete run has not passed)."""
-    if not summary["passed"]:
-        return "failed"
-    return "passed" if summary["complete"] else "incomplete"
+    """``passed``, ``failed`` (a check found a defect), ``no verdict`` (no check completed, or
+    the run has no end record: nothing was found, so nothing is said to have failed), or
+    ``incomplete`` for a run that passed the checks it made but left points not run.
+
+    The summary's own ``verdict`` (:func:`oracle.engine.summarise`) decides; a summary of an
+    older version without it is judged by its failures."""
+    verdict = summary.get("verdict")
+    if verdict not in ("passed", "failed", "no verdict"):
+        verdict = ("failed" if summary.get("failures") else
+                   "passed" if summary.get("passed") else "no verdict")
+    if verdict == "passed" and not summary.get("complete", True):
+        return "incomplete"
+    return verdict
+
+
+#: The CSS class (HTML) of each verdict of :func:`verdict_of`.
+VERDICT_CLASSES = {"passed": "passed", "failed": "failed", "incomplete": "incomplete",
+                   "no verdict": "no-verdict"}

@@ -21,7 +21,7 @@ from pathlib import Path
 from .._errors import InvalidInputError
 from . import _plot_data, _plots
 from ._cautions import CAUTIONS
-from ._describe import describe_divergence, show_arguments, show_value, verdict_of
+from ._describe import VERDICT_CLASSES, describe_divergence, show_arguments, show_value, verdict_of
 from ._json import ordered_summary
 from ._reproduce import reproduce_command
 
@@ -43,7 +43,7 @@ code, pre { font-family: ui-monospace, monospace; font-size: 0.85rem; }
 pre { background: #f5f5f5; padding: 0.5rem; white-space: pre-wrap; word-break: break-all; }
 td.value { font-family: ui-monospace, monospace; word-break: break-all; max-width: 18rem; }
 .passed { color: #2e7d32; font-weight: bold; } .failed { color: #c62828; font-weight: bold; }
-.incomplete { color: #ef6c00; font-weight: bold; }
+.incomplete, .no-verdict { color: #ef6c00; font-weight: bold; }
 .cautions { border: 2px solid #ef6c00; background: #fff3e0; padding: 0.4rem 1rem; }
 figure { margin: 1rem 0; } figure img { max-width: 100%; }
 figcaption { font-size: 0.85rem; color: #555; }
@@ -93,10 +93,13 @@ def render_html(runs, *, command: str | None = None, title: str = "ntoracle audi
 
 
 def _summary_section(runs, command: str | None) -> list[str]:
-    failed = sum(1 for summary, _ in runs if not summary["passed"])
+    verdicts = [verdict_of(summary) for summary, _ in runs]
+    failed, undecided = verdicts.count("failed"), verdicts.count("no verdict")
     parts = ['<section id="summary">', "<h2>Summary</h2>",
-             f"<p>{len(runs)} audit(s): {len(runs) - failed} without findings, "
-             f"{failed} with findings.</p>", "<table>",
+             f"<p>{len(runs)} audit(s): {len(runs) - failed - undecided} without findings, "
+             f"{failed} with findings"
+             + (f", {undecided} without a verdict (no check completed)" if undecided else "")
+             + ".</p>", "<table>",
              "<tr><th>role</th><th>target</th><th>profile</th><th>seed</th><th>checks</th>"
              "<th>passed</th><th>failed</th><th>skipped</th><th>first divergence</th>"
              "<th>verdict</th></tr>"]
@@ -104,13 +107,13 @@ def _summary_section(runs, command: str | None) -> list[str]:
         verdict = verdict_of(summary)
         parts.append(
             f'<tr><td><a href="#run-{index}">{_text(summary["role"])}</a></td>'
-            f'<td class="value">{_text(summary["target"])}</td><td>{_text(summary["profile"])}</td>'
+            f'<td class="value">{_text(show_value(summary["target"]))}</td><td>{_text(summary["profile"])}</td>'
             f'<td>{_text(summary["seed"])}</td><td class="number">{_text(summary["checks"])}</td>'
             f'<td class="number">{_text(summary["passed_checks"])}</td>'
             f'<td class="number">{len(summary["failures"])}</td>'
             f'<td class="number">{sum(summary["skipped"].values())}</td>'
             f'<td>{_text(describe_divergence(summary["first_divergence"]))}</td>'
-            f'<td class="{verdict}">{verdict}</td></tr>')
+            f'<td class="{VERDICT_CLASSES[verdict]}">{verdict}</td></tr>')
     parts.append("</table>")
     if command is not None:
         parts += ["<p>The command that produced this report:</p>", f"<pre><code>{_text(command)}</code></pre>"]
@@ -131,7 +134,7 @@ def _start_record(summary: dict, records: list[dict]) -> dict:
 def _run_section(index: int, summary: dict, records: list[dict]) -> list[str]:
     start = _start_record(summary, records)
     verdict = verdict_of(summary)
-    settings = [("target", start["target"]), ("role", start["role"]), ("profile", start["profile"]),
+    settings = [("target", show_value(start["target"], 400)), ("role", start["role"]), ("profile", start["profile"]),
                 ("seed", start["seed"]), ("timeout per call", _seconds(start.get("timeout"))),
                 ("declared domain", "" if start.get("maximum") is None else f"inputs <= {start['maximum']}"),
                 ("checks", f"{summary['checks']} made, {summary['passed_checks']} passed, "
@@ -139,18 +142,40 @@ def _run_section(index: int, summary: dict, records: list[dict]) -> list[str]:
                 ("time", _seconds(summary["timings"]["total_seconds"]))]
     settings += [(f"skipped: {reason}", f"{count} point(s), not counted as passed")
                  for reason, count in summary["skipped"].items()]
-    if not summary["complete"]:
+    if not summary.get("ended", summary["complete"]) or summary.get("interrupted"):
         settings.append(("run", "interrupted before its end: the results are partial"))
+    elif not summary["complete"]:
+        settings.append(("run", "not every point was run: the results are partial"))
     parts = [f'<section id="run-{index}">',
-             f'<h2>{_text(summary["role"])}: <span class="{verdict}">{verdict}</span></h2>', "<dl>"]
+             f'<h2>{_text(summary["role"])}: <span class="{VERDICT_CLASSES[verdict]}">{verdict}</span></h2>',
+             "<dl>"]
     parts += [f"<dt>{_text(name)}</dt><dd>{_text(value)}</dd>" for name, value in settings if value != ""]
     parts += ["</dl>", "<p>To repeat this audit:</p>",
               f"<pre><code>{_text(reproduce_command(start))}</code></pre>"]
     if summary["first_divergence"]:
         parts += ["<h3>First divergence</h3>", _divergence_table(summary["first_divergence"])]
+    parts += _reach_table(summary)
     parts += _figures(summary, records)
     parts += _failure_table(summary["failures"])
     parts.append("</section>")
+    return parts
+
+
+def _reach_table(summary: dict) -> list[str]:
+    """How far each family of inputs was checked, and why it went no higher."""
+    from ._terminal import readable_size
+
+    reach = summary.get("reach") or {}
+    rows = sorted(((entry.get("largest"), family, entry.get("stopped") or "")
+                   for family, entry in reach.items() if entry.get("largest") is not None),
+                  key=lambda row: -row[0])
+    if not rows:
+        return []
+    parts = ["<h3>Reach</h3>", "<table><thead><tr><th>family</th><th>checked up to</th>"
+             "<th>stopped by</th></tr></thead><tbody>"]
+    parts += [f"<tr><td>{_text(family)}</td><td>{_text(readable_size(largest))}</td>"
+              f"<td>{_text(stopped)}</td></tr>" for largest, family, stopped in rows]
+    parts.append("</tbody></table>")
     return parts
 
 

@@ -24,7 +24,8 @@ objects, in the order given.  The keys of an audit, always in this order:
     how many of them passed.
 ``failures``
     a list, one object per failed check: ``status`` (``wrong``, ``wrong-type``,
-    ``raised``, ``too-slow``, ``crashed`` or ``nondeterministic``), ``check`` (the
+    ``raised``, ``hung``, ``crashed``, ``bad-output``, ``nondeterministic``, ``tampered``, or
+    ``too-slow`` when the run was asked to fail on it with ``--slow-fails``), ``check`` (the
     comparison: ``exact``, ``proven-interval``, ``monotone``, ``listing``,
     ``factorization``, ...), ``family`` (where the input came from: ``tables``,
     ``boundaries``, ``pseudoprimes``, ``identity``, ...), ``arguments`` (a list of
@@ -60,6 +61,17 @@ objects, in the order given.  The keys of an audit, always in this order:
     ``null``, or the name of what interrupted the run (``KeyboardInterrupt``, ...).
 ``garbled_lines``
     torn or garbled lines of the results file that were skipped.
+``too_slow``
+    how many calls were too slow: no answer within the timeout (nor a 4 times longer
+    retry) at the top of the candidate's reach, after calls at smaller sizes grew
+    slower.  Not failures unless ``--slow-fails``; a hang is status ``hung``, a failure.
+``reach``
+    an object mapping each family of inputs (``tables``, ``boundaries``, ...,
+    ``climb-tables``, ``climb-random``) to ``{"largest": N, "stopped": reason}``: the
+    largest input checked (``null`` when none was answered) and why the family went no
+    higher (the profile's ceiling, a skip reason, or for the climb ``candidate speed``,
+    ``oracle budget``, ``declared domain (--max)``, ``time budget``, ``after failures``,
+    ``end of the oracle's tables``).
 ``corpus_added``
     present only when a regression corpus was used: how many failures were added to it.
 
@@ -84,7 +96,8 @@ SUMMARY_KEYS = ("target", "role", "profile", "seed", "passed", "complete", "chec
                 "passed_checks", "failures", "first_divergence", "skipped", "timings")
 
 #: Keys written after those when a summary has them.
-OPTIONAL_KEYS = ("verdict", "not_run", "ended", "interrupted", "garbled_lines", "corpus_added")
+OPTIONAL_KEYS = ("verdict", "not_run", "ended", "interrupted", "garbled_lines", "too_slow", "reach",
+                 "corpus_added")
 
 
 def ordered_summary(summary: dict) -> dict:

@@ -23,7 +23,7 @@ AXES_RIGHT = 0.74
 AGREES, DIFFERS, DIVERGENCE = "#2e7d32", "#c62828", "#37474f"
 ENVELOPE, ORACLE = "#90caf9", "#1565c0"
 STATUS_COLOURS = {"pass": AGREES, "wrong": DIFFERS, "wrong-type": "#ef6c00", "raised": "#6a1b9a",
-                  "too-slow": "#795548", "crashed": "#000000", "nondeterministic": "#ad1457"}
+                  "too-slow": "#795548", "crashed": "#000000", "bad-output": "#37474f", "tampered": "#b71c1c", "nondeterministic": "#ad1457"}
 
 
 def _figure(height: float, left: float = 0.11):

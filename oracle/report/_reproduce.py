@@ -35,8 +35,8 @@ def reproduce_command(start: dict) -> str:
     words = ["ntoracle", "audit"]
     if _PYTHON_TARGET.match(target):
         words.append(target)
-        if start.get("isolated"):
-            words.append("--isolate")
+        if start.get("isolated") is False:
+            words.append("--in-process")
     else:
         words += ["--exec", target]
     words += ["--role", str(start["role"]), "--profile", str(start["profile"]),

@@ -10,6 +10,7 @@ progress line, so that a CI log holds nothing but the summary.
 
 from __future__ import annotations
 
+import math
 import os
 import sys
 import time
@@ -20,12 +21,13 @@ from .._integers import require_int
 from ._cautions import CAUTIONS
 from ._describe import describe_divergence, verdict_of
 
-__all__ = ["Progress", "summary_table"]
+__all__ = ["Progress", "summary_table", "reach_lines", "readable_size"]
 
 #: Width of the table when the stream is not a terminal (a log has no width of its own).
 LOG_WIDTH = 120
 
-_VERDICT_STYLES = {"passed": "bold green", "failed": "bold red", "incomplete": "bold yellow"}
+_VERDICT_STYLES = {"passed": "bold green", "failed": "bold red", "incomplete": "bold yellow",
+                   "no verdict": "bold yellow"}
 
 
 def _is_terminal(stream: TextIO) -> bool:
@@ -169,6 +171,35 @@ def summary_table(summaries: dict | list[dict], stream: TextIO | None = None, *,
                       Text(describe_divergence(summary["first_divergence"], limit=24)),
                       Text(verdict.upper(), style=_VERDICT_STYLES[verdict] if wanted else ""))
     console.print(table)
+    for summary in summaries:
+        for line in reach_lines(summary):
+            console.print(Text(line))
     if cautions:
         for caution in CAUTIONS:
             console.print(Text(f"Caution: {caution}"))
+
+
+def readable_size(n: int) -> str:
+    """An input size as people read it: ``10^17 + 1``, ``2^64 - 1``, else the digits (≈ e-notation)."""
+    if n >= 8:
+        for base in (10, 2):
+            k = round(math.log(n, base))
+            for exponent in (k - 1, k, k + 1):
+                offset = n - base ** exponent
+                if exponent > 1 and abs(offset) <= 2:
+                    return f"{base}^{exponent}" + ("" if offset == 0 else
+                                                   f" {'+' if offset > 0 else '-'} {abs(offset)}")
+    if n.bit_length() > 1000:                # no float for it; int -> str refused above 4300 digits
+        return f"about 2^{n.bit_length() - 1}"
+    return str(n) if n < 10**6 else f"{n} (≈ {n:.2e})"
+
+
+def reach_lines(summary: dict) -> list[str]:
+    """One line per family of inputs, largest first: how far it was checked and why no further."""
+    reach = summary.get("reach") or {}
+    ordered = sorted(((entry.get("largest"), family, entry.get("stopped"))
+                      for family, entry in reach.items() if entry.get("largest") is not None),
+                     key=lambda item: -item[0])
+    return [f"{summary.get('role')}: checked up to {readable_size(largest)} ({family}"
+            + (f"; stopped: {stopped})" if stopped else ")")
+            for largest, family, stopped in ordered]

@@ -14,11 +14,11 @@ behaviour on invalid input).
 from __future__ import annotations
 
 from .._errors import InvalidInputError
-from ._role import Conventions, Role, Verdict, WrongType
+from ._role import AbsurdAnswer, Conventions, Role, Verdict, WrongType
 from . import (factor, is_prime, next_prime, nth_prime, prev_prime, prime_pi, primes_in,
                twin_pi)
 
-__all__ = ["Conventions", "Role", "Verdict", "WrongType", "ROLES", "get", "infer"]
+__all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES", "get", "infer"]
 
 #: Every role by name.
 ROLES: dict[str, Role] = {module.ROLE.name: module.ROLE for module in (

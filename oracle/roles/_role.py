@@ -19,6 +19,7 @@ import operator
 from dataclasses import dataclass, field
 from typing import Callable, Iterable, Sequence
 
+from .._bounded import bounded_text, describe_integer
 from .._errors import InvalidInputError
 
 __all__ = ["Conventions", "Verdict", "Role", "WrongType", "as_integer", "as_boolean",
@@ -73,6 +74,24 @@ class WrongType(Exception):
     """A raw answer whose type the role does not accept; the message says what came back."""
 
 
+#: An integer answer of more bits is wrong whatever the input: inputs have at most 4000 digits
+#: (oracle._integers.MAX_DIGITS) and no role's answer to one has more than about 4010, so such
+#: an answer is refused unread (it is not even converted to text: Python refuses above 4300).
+MAX_ANSWER_BITS = 14_000
+
+
+class AbsurdAnswer(WrongType):
+    """An integer answer larger than any answer to any input (:data:`MAX_ANSWER_BITS`): a
+    wrong answer, judged without the oracle."""
+
+
+def _shown(raw: object, limit: int = 60) -> str:
+    """A short repr of a raw answer for a message, never built whole."""
+    if isinstance(raw, (str, bytes)):
+        return repr(raw[:limit]) + (f"... ({len(raw)} characters)" if len(raw) > limit else "")
+    return bounded_text(raw, limit)
+
+
 @dataclass(frozen=True)
 class Role:
     """One role: its name, domain, how answers are normalised, judged and related.
@@ -105,18 +124,27 @@ class Role:
 
 def as_integer(raw: object) -> int:
     """``raw`` as an ``int``: ints and integer-like objects (numpy, gmpy2) only."""
+    if type(raw) is int and raw.bit_length() <= MAX_ANSWER_BITS:       # the common case, first
+        return raw
     if isinstance(raw, bool):
         raise WrongType(f"a bool ({raw!r}) where an integer is expected")
     if isinstance(raw, int):
-        return int(raw)
+        return _not_absurd(int(raw))
     if isinstance(raw, float):
         raise WrongType(f"a float ({raw!r}) where an integer is expected")
     if raw is None or isinstance(raw, (str, bytes)):
-        raise WrongType(f"{type(raw).__name__} {raw!r} where an integer is expected")
+        raise WrongType(f"{type(raw).__name__} {_shown(raw)} where an integer is expected")
     try:
-        return operator.index(raw)
+        return _not_absurd(operator.index(raw))
     except TypeError:
-        raise WrongType(f"a {type(raw).__name__} ({raw!r:.60}) where an integer is expected") from None
+        raise WrongType(f"a {type(raw).__name__} ({_shown(raw)}) where an integer is expected") from None
+
+
+def _not_absurd(value: int) -> int:
+    if value.bit_length() > MAX_ANSWER_BITS:
+        raise AbsurdAnswer(f"{describe_integer(value)}: larger than any answer to an input of "
+                           "at most 4000 digits")
+    return value
 
 
 def as_boolean(raw: object) -> bool:
@@ -126,20 +154,20 @@ def as_boolean(raw: object) -> bool:
     if type(raw).__name__ == "bool_":          # numpy.bool_
         return bool(raw)
     if isinstance(raw, float) or raw is None or isinstance(raw, (str, bytes)):
-        raise WrongType(f"{type(raw).__name__} {raw!r} where a bool is expected")
+        raise WrongType(f"{type(raw).__name__} {_shown(raw)} where a bool is expected")
     try:
         value = operator.index(raw)
     except TypeError:
         raise WrongType(f"a {type(raw).__name__} where a bool is expected") from None
     if value not in (0, 1):
-        raise WrongType(f"the integer {value} where a bool (or 0/1) is expected")
+        raise WrongType(f"the integer {bounded_text(value, 60)} where a bool (or 0/1) is expected")
     return bool(value)
 
 
 def as_integer_sequence(raw: object) -> list[int]:
     """An iterable of integers as a list of ``int`` (a str or a mapping is refused)."""
     if raw is None or isinstance(raw, (str, bytes, dict, int, float)):
-        raise WrongType(f"{type(raw).__name__} {raw!r:.60} where an iterable of integers is expected")
+        raise WrongType(f"{type(raw).__name__} {_shown(raw)} where an iterable of integers is expected")
     tolist = getattr(raw, "tolist", None)           # numpy arrays
     items: Iterable = tolist() if callable(tolist) else raw
     try:

@@ -19,7 +19,8 @@ from __future__ import annotations
 from collections import Counter
 
 from .. import facade
-from ._role import Conventions, Role, Verdict, WrongType, as_integer
+from .._bounded import bounded_text
+from ._role import Conventions, Role, Verdict, WrongType, _shown, as_integer
 
 
 class Factorisation(tuple):
@@ -66,7 +67,7 @@ def _shape_and_pairs(raw: object) -> tuple[str, list[tuple[int, int]]]:
     if isinstance(raw, dict):
         return "mapping", [(as_integer(p), _exponent(e)) for p, e in raw.items()]
     if raw is None or isinstance(raw, (str, bytes, int, float)):
-        raise WrongType(f"{type(raw).__name__} {raw!r:.60} where a factorisation is expected")
+        raise WrongType(f"{type(raw).__name__} {_shown(raw)} where a factorisation is expected")
     tolist = getattr(raw, "tolist", None)
     items = list(tolist() if callable(tolist) else raw)
     if all(isinstance(item, (tuple, list)) for item in items) and items:
@@ -83,10 +84,29 @@ def _exponent(raw: object) -> int:
     return exponent
 
 
+def _too_large(n: int, pairs) -> str:
+    """Why the product of ``pairs`` cannot be n, judged from bit lengths alone (a factor above
+    n, or exponents that make the product longer than n), or ``""``.  A candidate's
+    {2: 10**12} is refused here instead of being multiplied out."""
+    for prime, exponent in pairs:
+        if prime == 0 and exponent > 0:
+            return f"the factor 0 makes the product 0, not n = {n}"
+        if abs(prime) > n:
+            return f"the factor {bounded_text(prime, 60)} is larger than n = {n}"
+    if abs(n) > 1 and any(abs(p) > 1 for p, _ in pairs):
+        shortest = sum(e * (abs(p).bit_length() - 1) for p, e in pairs if abs(p) > 1 and e > 0)
+        if shortest >= n.bit_length():
+            return f"the product of the factors has at least {shortest + 1} bits; n = {n} has {n.bit_length()}"
+    return ""
+
+
 def _judge(arguments: tuple, got: tuple, conventions: Conventions, budget: float | None) -> Verdict:
     (n,) = arguments
-    report = facade.verify_factorization(n, dict(got))
     expected = "a product of primes equal to n"
+    too_large = _too_large(n, got)
+    if too_large:                   # decided from bit lengths: the product is never computed
+        return Verdict("factorization", False, expected, "definition", too_large)
+    report = facade.verify_factorization(n, dict(got))
     details = list(report.problems)
     irregularities = getattr(got, "irregularities", ())
     if irregularities:

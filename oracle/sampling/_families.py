@@ -95,6 +95,7 @@ def twins(ceiling, profile, rng) -> list[int]:
 
 def pseudoprimes(ceiling, profile, rng) -> list[int]:
     found = set(adversarial.STRONG_PSEUDOPRIMES_BASE_2)
+    found.update(p * p for p in adversarial.WIEFERICH_PRIMES)
     found.update(adversarial.STRONG_PSEUDOPRIMES_BASES_2_3_5_7)
     found.update(adversarial.LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES)
     found.update(adversarial.LUCAS_PSEUDOPRIMES)

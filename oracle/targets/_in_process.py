@@ -1,4 +1,9 @@
-"""A Python callable called in this process, with a per-call timeout.
+"""A Python callable called in this process, with a per-call timeout: the mode that trusts
+the candidate (``ntoracle audit --in-process``).
+
+The candidate then shares the harness's memory: it can patch the oracle, exit the process
+or crash it, and the verdict is only as good as the candidate's manners.  Use it for speed
+on code you trust; the default is the isolated worker.
 
 The timeout is a ``SIGALRM`` interval timer (POSIX ``setitimer``), armed only
 in the main thread; it interrupts Python code and most blocking calls, but not
@@ -16,6 +21,8 @@ import time
 from typing import Callable, Sequence
 
 from ._call import OK, RAISED, TIMEOUT, CallResult
+from ._tamper import changes, fingerprint
+from ._worker import bounded_answer, describe_exception
 
 __all__ = ["InProcessTarget"]
 
@@ -26,10 +33,9 @@ class _CallTimedOut(BaseException):
 
 
 def materialise(value: object) -> object:
-    """Consume a lazy iterator (a generator) so that its work is timed with the call."""
-    if hasattr(value, "__next__"):
-        return list(value)
-    return value
+    """Consume a lazy iterator (a generator) so that its work is timed with the call, and bound
+    the answer (:func:`oracle.targets._worker.bounded_answer`)."""
+    return bounded_answer(value)
 
 
 class InProcessTarget:
@@ -42,25 +48,42 @@ class InProcessTarget:
 
     isolated = False
 
-    def __init__(self, function: Callable, *, timeout: float, description: str):
+    def __init__(self, function: Callable, *, timeout: float, description: str,
+                 fingerprint: dict | None = None):
         self.function = function
+        self._fingerprint = fingerprint
         self.timeout = timeout
         self.description = description
         self._calling = False
+        self._interrupted = False
 
     def _on_alarm(self, signum, frame):
         if self._calling:
             raise _CallTimedOut()
 
-    def call_many(self, calls: Sequence[tuple[int, ...]]) -> list[CallResult]:
+    def _on_interrupt(self, signum, frame):
+        self._interrupted = True
+        raise KeyboardInterrupt
+
+    def call_many(self, calls: Sequence[tuple[int, ...]], *, stop_on_fault: bool = False) -> list[CallResult]:
+        """The results in order; with ``stop_on_fault`` the list ends at the first timeout."""
         alarm = threading.current_thread() is threading.main_thread()
-        previous = signal.signal(signal.SIGALRM, self._on_alarm) if alarm else None
+        self._interrupted = False
+        if alarm:
+            previous = signal.signal(signal.SIGALRM, self._on_alarm)
+            previous_interrupt = signal.signal(signal.SIGINT, self._on_interrupt)
         try:
-            return [self._call(arguments, alarm) for arguments in calls]
+            results = []
+            for arguments in calls:
+                results.append(self._call(arguments, alarm))
+                if stop_on_fault and results[-1].status == TIMEOUT:
+                    break
+            return results
         finally:
             if alarm:
                 signal.setitimer(signal.ITIMER_REAL, 0)
                 signal.signal(signal.SIGALRM, previous)
+                signal.signal(signal.SIGINT, previous_interrupt)
 
     def _call(self, arguments: tuple[int, ...], alarm: bool) -> CallResult:
         function, timeout = self.function, self.timeout
@@ -76,14 +99,23 @@ class InProcessTarget:
         except _CallTimedOut:
             return CallResult(TIMEOUT, error=f"no answer within {timeout:g} s",
                               seconds=time.perf_counter() - started)
-        except (Exception, SystemExit) as error:
-            return CallResult(RAISED, error=f"{type(error).__name__}: {error}"[:300],
+        except BaseException as error:
+            if isinstance(error, KeyboardInterrupt) and self._interrupted:
+                raise                   # the user's Ctrl-C, not the candidate's exception
+            return CallResult(RAISED, error=describe_exception(error),
                               seconds=time.perf_counter() - started)
         seconds = time.perf_counter() - started
         if seconds > timeout:
             return CallResult(TIMEOUT, error=f"answered after {seconds:.3g} s, over the {timeout:g} s limit",
                               seconds=seconds)
         return CallResult(OK, value, seconds=seconds)
+
+    def tampered(self) -> list[str]:
+        """What of the oracle and the builtins changed since before the candidate was imported
+        (:mod:`oracle.targets._tamper`); empty when nothing did or no fingerprint was taken."""
+        if self._fingerprint is None:
+            return []
+        return changes(self._fingerprint, fingerprint())
 
     def close(self) -> None:
         pass

@@ -9,54 +9,69 @@ factors with multiplicity separated by spaces (``2 2 3``), ``p^e`` allowed
 input (it counts as raising an exception).  Anything else is passed on as
 text, which the role then reports as a wrong type.
 
-The isolated Python worker speaks the same framing with JSON values, so that
-types survive the trip: a float stays a float, ``None`` stays ``None``.
+The isolated Python worker (:mod:`oracle.targets._worker`) speaks the same framing
+with JSON values on private pipes, so that types survive the trip: a float stays a
+float, ``None`` stays ``None``.
 """
 
 from __future__ import annotations
 
 import json
+import math
 import re
 
-__all__ = ["encode_text_request", "decode_text_answer", "encode_json_value", "decode_json_answer",
-           "Opaque"]
+from ._worker import MAX_DIGITS, Overlong, Oversized
+
+__all__ = ["encode_text_request", "decode_text_answer", "decode_json_answer", "Opaque"]
 
 _INTEGER = re.compile(rb"^\s*[-+]?\d+\s*$")
-_FACTOR = re.compile(r"^(\d+)(?:(?:\^|\*\*)(\d+))?$")
+_FACTOR = re.compile(rb"^(\d+)(?:(?:\^|\*\*)(\d+))?$")
+#: Characters of an answer line kept when it is not an answer.
+MAX_TEXT = 1000
 
 
 def encode_text_request(arguments: tuple[int, ...]) -> bytes:
     return (" ".join(str(value) for value in arguments) + "\n").encode()
 
 
-def decode_text_answer(role_name: str, line: bytes) -> tuple[bool, object]:
-    """``(refused, value)`` for one answer line of an executable."""
-    text = line.decode(errors="replace").strip()
+def decode_text_answer(role_name: str, line: bytes) -> tuple[bool, object, None]:
+    """``(refused, value, None)`` for one answer line of an executable; text that is not an answer
+    is passed on cut to :data:`MAX_TEXT` characters, an integer of more than
+    :data:`oracle.targets._worker.MAX_DIGITS` digits as its size only."""
+    text = line[:MAX_TEXT].decode(errors="replace").strip() if len(line) > MAX_TEXT \
+        else line.decode(errors="replace").strip()
     if text.lower().startswith("error"):
-        return True, text
+        return True, text, None
     if role_name == "is_prime":
         lowered = text.lower()
         if lowered in ("1", "true"):
-            return False, True
+            return False, True, None
         if lowered in ("0", "false"):
-            return False, False
-        return False, text
+            return False, False, None
+        return False, text, None
     if role_name == "primes_in":
-        tokens = text.split()
-        if all(_INTEGER.match(token.encode()) for token in tokens):
-            return False, [int(token) for token in tokens]
-        return False, text
+        tokens = line.split()
+        if all(_INTEGER.match(token) for token in tokens):
+            return False, [_integer(token) for token in tokens], None
+        return False, text, None
     if role_name == "factor":
         pairs = []
-        for token in text.split():
+        for token in line.split():
             match = _FACTOR.match(token)
             if match is None:
-                return False, text
-            pairs.append((int(match.group(1)), int(match.group(2) or 1)))
-        return False, pairs
+                return False, text, None
+            pairs.append((_integer(match.group(1)), _integer(match.group(2) or b"1")))
+        return False, pairs, None
     if _INTEGER.match(line):
-        return False, int(text)
-    return False, text
+        return False, _integer(line), None
+    return False, text, None
+
+
+def _integer(token: bytes) -> int | Oversized:
+    digits = token.strip().lstrip(b"+-")
+    if len(digits) > MAX_DIGITS:
+        return Oversized(len(digits.lstrip(b"0")), token.strip().startswith(b"-"))
+    return int(token)
 
 
 class Opaque:
@@ -69,35 +84,14 @@ class Opaque:
         return f"<{self.type_name} {self.text}>"
 
 
-def encode_json_value(value: object) -> object:
-    """A JSON-able, type-preserving form of a candidate's answer."""
-    if isinstance(value, bool) or value is None:
-        return value
-    if isinstance(value, int):
-        return int(value)
-    if isinstance(value, float):
-        return {"float": repr(value)}
-    if isinstance(value, str):
-        return {"str": value}
-    if isinstance(value, dict):
-        return {"dict": [[encode_json_value(k), encode_json_value(v)] for k, v in value.items()]}
-    if type(value).__name__ == "bool_":
-        return bool(value)
-    if hasattr(value, "__index__") and not hasattr(value, "__len__"):
-        return int(value.__index__())
-    if hasattr(value, "dtype") and getattr(value, "shape", None) == ():
-        return encode_json_value(value.item())
-    tolist = getattr(value, "tolist", None)
-    if callable(tolist):
-        return encode_json_value(tolist())
-    if isinstance(value, (list, tuple, set, frozenset, range)) or hasattr(value, "__next__"):
-        return {"list": [encode_json_value(item) for item in value]}
-    return {"object": type(value).__name__, "repr": repr(value)[:200]}
-
-
 def decode_json_value(data: object) -> object:
+    """The answer encoded by :func:`oracle.targets._worker.encode_value`."""
     if not isinstance(data, dict):
         return data
+    if "huge" in data:
+        return Oversized(int(data["huge"]), bool(data.get("negative")))
+    if "overlong" in data:
+        return Overlong(int(data["overlong"]), bool(data.get("endless")))
     if "float" in data:
         return float(data["float"])
     if "str" in data:
@@ -113,8 +107,13 @@ def _hashable(value: object) -> object:
     return tuple(value) if isinstance(value, list) else value
 
 
-def decode_json_answer(role_name: str, line: bytes) -> tuple[bool, object]:
-    message = json.loads(line)
-    if "raised" in message:
-        return True, message["raised"]
-    return False, decode_json_value(message["value"])
+def decode_json_answer(role_name: str, line: bytes) -> tuple[bool, object, float | None]:
+    """``(refused, value, seconds the call took)`` for one answer line of the Python worker."""
+    try:
+        message = json.loads(line)
+        seconds = float(message.get("seconds", 0.0))
+        if "raised" in message:
+            return True, str(message["raised"])[:300], seconds
+        return False, decode_json_value(message["value"]), seconds
+    except (ValueError, TypeError, KeyError, RecursionError, AttributeError) as error:
+        raise ValueError(f"not an answer of the worker: {type(error).__name__}") from None

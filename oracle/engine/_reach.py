@@ -1,0 +1,155 @@
+"""Reach that follows the candidate: after the sampled points, climb as high as it is fast.
+
+The sampled points of a counting role stop near 2³² (:mod:`oracle.sampling`),
+however fast the candidate is.  The climb goes on from the largest point asked,
+in increasing size, with two families:
+
+``climb-tables``
+    at each point B of the oracle's published tables above it (2^k and 10^k for
+    π, 10^k for π₂ and for p_n, :mod:`oracle.tables`), the inputs B − 1, B, B + 1:
+    the oracle answers them with the tabulated value and a sieve of a few
+    integers (π(B ± 1) = π(B) ± [B ± 1 prime]);
+``climb-random``
+    one seeded random point in each octave [2^j, 2^(j+1)), where the oracle's
+    combinatorial method (or its sieve) answers within its budget.
+
+Before each step the cost is estimated, never just tried: the candidate's time
+per call is projected from the calls already made (:mod:`oracle.engine._speed`)
+and must stay within :data:`CALL_SHARE` of the per-call timeout; the oracle's
+time comes from the cost model of its cheapest exact route (the same estimate
+:mod:`oracle.facade` uses to pick a route) and must stay within the oracle's
+budget; both together must fit the time left (less :data:`RESERVE` of the time
+budget, kept for re-asking and localising; a random step may take only
+:data:`RANDOM_SHARE` of it, so that the table points, far cheaper to judge, go
+higher).  A family stops for good at the
+first step that does not fit, and the reason is recorded (a ``reach`` record):
+"candidate speed", "oracle budget", "declared domain (--max)", "time budget",
+"after failures", or "end of the oracle's tables".  A step that finds a defect
+ends the climb: the localisation (bisection) takes it from there.
+"""
+
+from __future__ import annotations
+
+import random
+
+from .. import facade, tables
+
+__all__ = ["climb", "CLIMB_FAMILIES", "STOP_REASONS", "oracle_seconds", "CALL_SHARE"]
+
+CLIMB_TABLES, CLIMB_RANDOM = "climb-tables", "climb-random"
+CLIMB_FAMILIES = (CLIMB_TABLES, CLIMB_RANDOM)
+
+CANDIDATE_SPEED, ORACLE_BUDGET, DECLARED_DOMAIN = ("candidate speed", "oracle budget",
+                                                   "declared domain (--max)")
+TIME_BUDGET, AFTER_FAILURES, TABLES_END = "time budget", "after failures", "end of the oracle's tables"
+STOP_REASONS = (CANDIDATE_SPEED, ORACLE_BUDGET, DECLARED_DOMAIN, TIME_BUDGET, AFTER_FAILURES,
+                TABLES_END)
+
+#: Reasons that hold for every larger step of either family (sizes only grow).
+_FOR_EVERY_LARGER_STEP = (CANDIDATE_SPEED, DECLARED_DOMAIN, AFTER_FAILURES)
+#: The oracle's function of each role that climbs, as named by :mod:`oracle.tables`.
+TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime"}
+#: Largest share of the per-call timeout a projected call may take.
+CALL_SHARE = 0.5
+#: Share of the time budget kept for the phases after the climb.
+RESERVE = 0.1
+#: Share of the time left that one random step may take: the table points, whose reference
+#: costs a short sieve, come first; a random point's reference is a whole prime count.
+RANDOM_SHARE = 1 / 3
+#: Offsets asked around each table point.
+OFFSETS = (-1, 0, 1)
+
+
+def oracle_seconds(role_name: str, x: int, budget: float) -> float:
+    """The oracle's estimated seconds for the exact reference at ``x`` (inf: no route)."""
+    if role_name == "nth_prime":
+        x = facade._nth_prime_upper_bound(x)      # p_n is judged through π(p_n) = n
+    if role_name in ("prime_pi", "nth_prime"):
+        routes = [facade._route_by_table("pi", "primes", x, budget),
+                  facade._route_by_combinatorial(x, budget),
+                  facade._route_by_sieve("primes", x, budget)]
+    else:
+        routes = [facade._route_by_table("twin_pi", "twins", x, budget),
+                  facade._route_by_sieve("twins", x, budget)]
+    return min((route.seconds for route in routes if route is not None), default=float("inf"))
+
+
+def _steps(role_name: str, start: int, rng: random.Random) -> list[tuple[int, str, list[int]]]:
+    """(size, family, inputs) above ``start``, in increasing size."""
+    points = sorted(x for x in tables.values(TABLE_FUNCTIONS[role_name]) if x > start + 1)
+    steps = [(b + 1, CLIMB_TABLES, [b + d for d in OFFSETS]) for b in points]
+    top = points[-1] if points else start
+    for j in range(max(start, 1).bit_length() - 1, top.bit_length() - 1):
+        low = max(1 << j, start + 1)
+        if low < 1 << (j + 1):
+            x = rng.randrange(low, 1 << (j + 1))
+            steps.append((x, CLIMB_RANDOM, [x]))
+    return sorted(steps, key=lambda step: (step[0], step[1]))
+
+
+def climb(run, seed: int) -> None:
+    """Ask the climbing points of a counting role (``run`` is the engine's :class:`_Run`)."""
+    role = run.role
+    if role.name not in TABLE_FUNCTIONS:
+        return
+    start = run.speed.largest()
+    if start is None:
+        return
+    stopped: dict[str, tuple[str, int | None]] = {}
+    largest: dict[str, int] = {}
+    timeout = run.call_timeout()
+    budget = run.options.oracle_budget
+    steps = _steps(role.name, start, random.Random(f"{seed}:climb"))
+    for size, family, inputs in steps:
+        if family in stopped:
+            continue
+        maximum = run.options.maximum
+        inputs = [x for x in inputs if x >= role.minimum and (maximum is None or x <= maximum)]
+        if not inputs:
+            for name in CLIMB_FAMILIES:
+                stopped.setdefault(name, (DECLARED_DOMAIN, size))
+            break
+        size = max(inputs)
+        share = RANDOM_SHARE if family == CLIMB_RANDOM else 1.0
+        reason = _why_not(run, size, inputs, timeout, budget, share)
+        if reason is not None:
+            for name in (CLIMB_FAMILIES if reason in _FOR_EVERY_LARGER_STEP else (family,)):
+                stopped.setdefault(name, (reason, size))
+            if len(stopped) == len(CLIMB_FAMILIES):
+                break
+            continue
+        before = (len(run.too_slow), len(run.failures), run.faults)
+        run.ask([(family, (x,)) for x in inputs])
+        largest[family] = size
+        if len(run.too_slow) > before[0]:
+            reason = CANDIDATE_SPEED
+        elif (len(run.failures), run.faults) != before[1:]:
+            reason = AFTER_FAILURES
+        if reason is not None:
+            for name in CLIMB_FAMILIES:
+                stopped.setdefault(name, (reason, None))
+            break
+    for family in CLIMB_FAMILIES:
+        reason, following = stopped.get(family, (TABLES_END, None))
+        run.stream.write({"type": "reach", "family": family, "stopped": reason,
+                          "largest": largest.get(family), "next": following,
+                          "elapsed": run.elapsed()})
+
+
+def _why_not(run, size: int, inputs: list[int], timeout: float, budget: float,
+             share: float) -> str | None:
+    """Why one climbing step is not to be asked, or None."""
+    if run.failures or run.failed_enough():
+        return AFTER_FAILURES
+    blocked = run.runnable((max(inputs),))
+    if blocked is not None:
+        return CANDIDATE_SPEED if "timed out" in blocked or "speed" in blocked else AFTER_FAILURES
+    projected = run.speed.project(size)
+    if projected is None or projected > CALL_SHARE * timeout:
+        return CANDIDATE_SPEED
+    oracle = max(oracle_seconds(run.role.name, x, budget) for x in inputs)
+    if oracle > budget:
+        return ORACLE_BUDGET
+    if len(inputs) * projected + oracle > share * (run.remaining() - RESERVE * run.time_budget):
+        return TIME_BUDGET
+    return None

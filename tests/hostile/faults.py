@@ -1,0 +1,114 @@
+"""Candidates that fault from x = 500 on and count primes correctly elsewhere (a sieve of their own,
+so that nothing here depends on the oracle)."""
+
+import ctypes
+import math
+import os
+import sys
+import time
+
+TRIGGER = 500
+
+
+def _count(x):
+    if x < 2:
+        return 0
+    sieve = bytearray([1]) * (x + 1)
+    sieve[0:2] = b"\0\0"
+    for p in range(2, math.isqrt(x) + 1):
+        if sieve[p]:
+            sieve[p * p::p] = bytes(len(range(p * p, x + 1, p)))
+    return sum(sieve)
+
+
+def exits_zero(x):
+    if x >= TRIGGER:
+        os._exit(0)
+    return _count(x)
+
+
+def segfaults(x):
+    if x >= TRIGGER:
+        ctypes.string_at(0)
+    return _count(x)
+
+
+def raises_keyboard_interrupt(x):
+    if x >= TRIGGER:
+        raise KeyboardInterrupt
+    return _count(x)
+
+
+class Escape(BaseException):
+    pass
+
+
+def raises_base_exception(x):
+    if x >= TRIGGER:
+        raise Escape("not an Exception")
+    return _count(x)
+
+
+def swallows_the_timeout(x):
+    if x >= TRIGGER:
+        while True:
+            try:
+                time.sleep(10)
+            except BaseException:       # a bare except around everything, timers included
+                pass
+    return _count(x)
+
+
+def huge_answer(x):
+    if x >= TRIGGER:
+        return 10 ** 100_000
+    return _count(x)
+
+
+def endless_listing(a, b):
+    if a <= TRIGGER <= b:
+        def forever():
+            while True:
+                yield 2
+        return forever()
+    return [n for n in range(max(a, 2), b + 1) if all(n % d for d in range(2, math.isqrt(n) + 1))]
+
+
+def chatty(x):
+    print(f"computing pi({x}) ...")
+    print("42", file=sys.stderr)
+    return _count(x)
+
+
+def floods_stdout(x):
+    if x >= TRIGGER:
+        sys.stdout.write("9" * (80 * 2**20))
+        sys.stdout.flush()
+    return _count(x)
+
+
+class AlwaysEqual:
+    def __eq__(self, other):
+        return True
+
+    def __hash__(self):
+        return 0
+
+
+def always_equal(x):
+    return AlwaysEqual() if x >= TRIGGER else _count(x)
+
+
+class LyingInt(int):
+    def __eq__(self, other):
+        return True
+
+    __hash__ = int.__hash__
+
+
+def lying_int(x):
+    return LyingInt(0) if x >= TRIGGER else _count(x)
+
+
+def raises_at_import_time():
+    raise RuntimeError("never called")

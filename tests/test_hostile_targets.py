@@ -1,0 +1,285 @@
+"""Hostile and clumsy candidates (tests/hostile/): whatever a candidate does ends as a finding
+with a true description or as a clean usage error -- never as PASSED, a traceback, a hang or
+lost data -- and the judge, in its own process, is out of the candidate's reach.
+
+The expected counts come from the candidates' own sieve, checked here against the oracle's
+tables where they appear (π(1000) = 168, OEIS A006880).
+"""
+
+import json
+import os
+import signal
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+import pytest
+
+import oracle.engine._audit
+import oracle.engine._records
+import oracle.facade
+from oracle import InvalidInputError, engine, targets
+from oracle.engine import AuditOptions
+from oracle.targets import _line_process
+
+TESTS = Path(__file__).parent
+ROOT = TESTS.parent
+SMALL = 3000        # every fault below triggers from 500 on; points above SMALL are skipped
+
+
+def audit(spec, role="prime_pi", tmp_path=None, *, isolate=True, timeout=1.0, **options):
+    target = targets.python_target(spec, role_name=role, timeout=timeout, isolate=isolate,
+                                   python_path=[str(TESTS)] + sys.path)
+    stream = tmp_path / "records.jsonl"
+    try:
+        summary = engine.run_audit(target, AuditOptions(role=role, profile="quick", seed=7,
+                                                        maximum=options.pop("maximum", SMALL),
+                                                        stream=str(stream), **options))
+    finally:
+        target.close()
+    json.dumps(summary)         # a summary is always plain data, whatever the candidate returned
+    records = engine.read_records(stream)
+    assert records[-1]["type"] == "end", "the record stream must end with its end record"
+    return summary
+
+
+def statuses(summary):
+    return {failure["status"] for failure in summary["failures"]}
+
+
+def details(summary):
+    return " | ".join(str(failure["detail"]) for failure in summary["failures"])
+
+
+def environment():
+    env = dict(os.environ, PYTHONPATH=os.pathsep.join([str(TESTS), str(ROOT)]),
+               TERM="dumb", NO_COLOR="1")
+    env.pop("COLUMNS", None)
+    return env
+
+
+def ntoracle(*argv, cwd, timeout=300):
+    return subprocess.run([sys.executable, "-m", "oracle.cli", *argv], cwd=cwd, env=environment(),
+                          capture_output=True, text=True, timeout=timeout)
+
+
+# -- the judge is out of the candidate's reach ---------------------------------------------- #
+
+def test_the_oracle_patching_candidate_fails_isolated_and_the_parent_never_imports_it(tmp_path):
+    answer, statuses_before = oracle.facade.answer, oracle.engine._records.FAILURE_STATUSES
+    summary = audit("hostile.patcher:prime_pi", tmp_path=tmp_path)
+    assert not summary["passed"] and summary["verdict"] == "failed"
+    # π(1000) = 168 (OEIS A006880); the candidate says 169 from 1000 on
+    assert {"status": "wrong", "arguments": [1000], "got": 169, "expected": 168} \
+        .items() <= next(f for f in summary["failures"] if f["arguments"] == [1000]).items()
+    assert "hostile.patcher" not in sys.modules
+    assert oracle.facade.answer is answer
+    assert oracle.engine._records.FAILURE_STATUSES is statuses_before
+
+
+def test_the_oracle_patching_candidate_fails_on_the_command_line_in_both_modes(tmp_path):
+    for mode in ([], ["--in-process"]):
+        result = ntoracle("audit", "hostile.patcher:prime_pi", "--role", "prime_pi", "--profile",
+                          "quick", "--seed", "7", "--max", str(SMALL), "--json", "s.json", *mode,
+                          cwd=tmp_path)
+        assert result.returncode == 1, (mode, result.stdout[-2000:], result.stderr[-2000:])
+        summary = json.loads((tmp_path / "s.json").read_text())
+        assert summary["passed"] is False
+        if mode:        # in this process: the tampering itself is the finding
+            assert summary.get("tampered") and "FAILURE_STATUSES" in " ".join(summary["tampered"])
+        else:
+            assert any(f["arguments"] == [1000] and f["got"] == 169 for f in summary["failures"])
+
+
+def test_the_oracle_patching_candidate_fails_in_the_pytest_plugin(tmp_path):
+    (tmp_path / "pytest.ini").write_text("[pytest]\n")
+    result = subprocess.run(
+        [sys.executable, "-m", "pytest", "-p", "no:cacheprovider", "-q",
+         "--ntoracle-target", "prime_pi=hostile.patcher:prime_pi", "--ntoracle-seed", "7",
+         "-k", "tables"],
+        cwd=tmp_path, env=environment(), capture_output=True, text=True, timeout=600)
+    assert result.returncode == 1, result.stdout[-3000:]
+    assert " failed" in result.stdout.splitlines()[-1]
+
+
+# -- every fault is a finding with a true description --------------------------------------- #
+
+FAULTS = [
+    ("exits_zero", {"crashed"}, "exited with status 0"),
+    ("segfaults", {"crashed"}, "SIGSEGV"),
+    ("raises_keyboard_interrupt", {"raised"}, "KeyboardInterrupt"),
+    ("raises_base_exception", {"raised"}, "Escape: not an Exception"),
+    ("huge_answer", {"wrong"}, "an integer of 100001 digits"),
+    ("floods_stdout", {"crashed"}, "SIGXFSZ"),
+    ("always_equal", {"wrong-type"}, "AlwaysEqual"),
+    ("lying_int", {"wrong"}, "got 0"),
+]
+
+
+@pytest.mark.parametrize("name, kinds, description", FAULTS, ids=[f[0] for f in FAULTS])
+def test_a_fault_of_an_isolated_candidate_is_a_finding_and_the_run_goes_on(tmp_path, name, kinds,
+                                                                          description):
+    summary = audit(f"hostile.faults:{name}", tmp_path=tmp_path)
+    assert summary["verdict"] == "failed"
+    assert statuses(summary) == kinds
+    assert description in details(summary) or description in json.dumps(summary["failures"])
+    assert summary["passed_checks"] > 100        # the points below 500 were still judged
+
+
+def test_a_swallowed_timeout_is_still_a_timeout_in_the_worker(tmp_path):
+    summary = audit("hostile.faults:swallows_the_timeout", tmp_path=tmp_path, timeout=0.5)
+    assert statuses(summary) <= {"too-slow", "hung"} and summary["failures"]
+    assert min(f["arguments"][0] for f in summary["failures"]) >= 500
+
+
+@pytest.mark.parametrize("name, kinds, description", [
+    ("raises_keyboard_interrupt", {"raised"}, "KeyboardInterrupt"),
+    ("raises_base_exception", {"raised"}, "Escape"),
+    ("huge_answer", {"wrong"}, "an integer of 100001 digits"),
+    ("lying_int", {"wrong"}, "got 0"),
+])
+def test_in_process_faults_that_the_trusting_mode_still_contains(tmp_path, name, kinds, description):
+    summary = audit(f"hostile.faults:{name}", tmp_path=tmp_path, isolate=False)
+    assert statuses(summary) == kinds and description in details(summary)
+
+
+@pytest.mark.parametrize("isolate", [True, False], ids=["isolated", "in-process"])
+def test_an_endless_iterator_is_consumed_only_so_far(tmp_path, isolate, monkeypatch):
+    from oracle.targets import _worker
+
+    monkeypatch.setattr(_worker, "MAX_ITEMS", 10_000)      # in-process only; the worker's is 2**24
+    summary = audit("hostile.faults:endless_listing", "primes_in", tmp_path, isolate=isolate,
+                    timeout=5.0)
+    assert summary["verdict"] == "failed" and statuses(summary) <= {"wrong", "too-slow"}
+    assert "iterator that yielded more than" in details(summary) or "no answer" in details(summary)
+
+
+def test_a_candidate_that_prints_is_judged_on_its_answers_alone(tmp_path):
+    summary = audit("hostile.faults:chatty", tmp_path=tmp_path)
+    assert summary["passed"] and summary["checks"] > 300
+
+
+def test_a_module_that_exits_while_imported_is_a_clean_usage_error(tmp_path):
+    with pytest.raises(InvalidInputError, match="ended while importing"):
+        targets.python_target("hostile.import_exits:prime_pi", role_name="prime_pi", timeout=1.0,
+                              python_path=[str(TESTS)] + sys.path)
+    result = ntoracle("audit", "hostile.import_exits:prime_pi", "--role", "prime_pi", cwd=tmp_path)
+    assert result.returncode == 2 and "Traceback" not in result.stderr + result.stdout
+
+
+@pytest.mark.parametrize("timeout", [float("inf"), float("nan"), 1e20, 0.0, -1.0])
+def test_timeouts_must_be_finite_and_positive(timeout):
+    with pytest.raises(InvalidInputError, match="timeout"):
+        targets.python_target("math:isqrt", role_name="prime_pi", timeout=timeout)
+
+
+def test_the_exit_code_is_the_harness_s_when_the_candidate_exits(tmp_path):
+    result = ntoracle("audit", "hostile.faults:exits_zero", "--role", "prime_pi", "--profile",
+                      "quick", "--seed", "7", "--max", str(SMALL), "--json", "s.json", cwd=tmp_path)
+    assert result.returncode == 1
+    summary = json.loads((tmp_path / "s.json").read_text())
+    assert summary["verdict"] == "failed" and "exited with status 0" in json.dumps(summary)
+    assert "FAILED" in result.stdout
+
+
+# -- executables ----------------------------------------------------------------------------- #
+
+@pytest.fixture
+def chatty_exec():
+    target = targets.exec_target(f"{sys.executable} {TESTS / 'hostile' / 'chatty_exec.py'}",
+                                 role_name="prime_pi", timeout=2.0)
+    yield target
+    target.close()
+
+
+def test_an_extra_line_is_pinned_on_the_call_that_printed_it(chatty_exec):
+    results = chatty_exec.call_many([(10,), (11,), (12,), (13,), (14,), (15,), (16,), (100,)])
+    assert [r.status for r in results] == ["ok", "ok", "ok", "bad-output", "ok", "ok", "ok", "ok"]
+    # π(10), π(11), π(12), π(14), π(15), π(16), π(100): OEIS A000720
+    assert [r.value for r in results if r.status == "ok"] == [4, 5, 5, 6, 6, 6, 25]
+    assert "more than one line" in results[3].error
+
+
+def test_an_executable_exit_is_described_by_its_own_status(chatty_exec):
+    results = chatty_exec.call_many([(16,), (17,), (18,)])
+    assert [r.status for r in results] == ["ok", "crashed", "ok"]
+    assert "exited with status 3" in results[1].error and "signal" not in results[1].error
+    assert [results[0].value, results[2].value] == [6, 7]         # OEIS A000720
+
+
+def test_an_endless_answer_line_is_a_flood(chatty_exec, monkeypatch):
+    monkeypatch.setattr(_line_process, "MAX_LINE", 8 * 2**20)     # the line is 20 MiB
+    results = chatty_exec.call_many([(19,), (20,)])
+    assert [r.status for r in results] == ["bad-output", "ok"]
+    assert "flooded" in results[0].error and results[1].value == 8     # π(20) = 8, OEIS A000720
+
+
+def test_an_isolated_worker_dies_with_the_harness(tmp_path):
+    script = tmp_path / "harness.py"
+    script.write_text(
+        "import sys, time\n"
+        "from oracle import targets\n"
+        f"t = targets.python_target('hostile.faults:chatty', role_name='prime_pi', timeout=5.0,"
+        f" python_path=[{str(TESTS)!r}] + sys.path)\n"
+        "print(t.process.pid, flush=True)\n"
+        "time.sleep(600)\n")
+    harness = subprocess.Popen([sys.executable, str(script)], env=environment(),
+                               stdout=subprocess.PIPE, text=True)
+    worker = int(harness.stdout.readline())
+    assert _alive(worker)
+    harness.send_signal(signal.SIGKILL)
+    harness.wait()
+    deadline = time.monotonic() + 10
+    while _alive(worker) and time.monotonic() < deadline:
+        time.sleep(0.05)
+    assert not _alive(worker), "the worker outlived the harness"
+
+
+def _alive(pid: int) -> bool:
+    try:
+        state = Path(f"/proc/{pid}/stat").read_text().rsplit(")", 1)[1].split()[0]
+    except (FileNotFoundError, ProcessLookupError, IndexError):
+        return False
+    return state not in ("Z", "X")       # a zombie has ended; only its parent's wait is missing
+
+
+# -- the corpus under concurrent audits -------------------------------------------------------- #
+
+AUDITS = [["audit", "hostile.patcher:prime_pi", "--role", "prime_pi", "--profile", "quick",
+           "--seed", "7", "--max", "1500"],
+          ["audit", "_candidates:nth_prime_zero_based", "--role", "nth_prime", "--profile",
+           "quick", "--seed", "1", "--max", "400"]]
+
+
+def _audits(folders: list[Path]) -> None:
+    """The two audits at once, the first in ``folders[0]``, the second in ``folders[-1]``."""
+    processes = [subprocess.Popen([sys.executable, "-m", "oracle.cli", *command], cwd=folder,
+                                  env=environment(), stdout=subprocess.DEVNULL,
+                                  stderr=subprocess.PIPE, text=True)
+                 for command, folder in zip(AUDITS, [folders[0], folders[-1]])]
+    for process in processes:
+        assert process.wait(timeout=300) == 1, process.stderr.read()[-2000:]
+
+
+def _entries(folder: Path) -> list:
+    return sorted((e["role"], e["target"], tuple(e["arguments"]))
+                  for e in engine.load_corpus(folder / ".ntoracle" / "regressions.yaml"))
+
+
+@pytest.mark.parametrize("trials", [pytest.param(2, id="2-trials"),
+                                    pytest.param(20, id="20-trials", marks=pytest.mark.slow)])
+def test_two_concurrent_audits_keep_every_corpus_entry(tmp_path, trials):
+    apart = [_fresh(tmp_path / "first"), _fresh(tmp_path / "second")]
+    _audits(apart)          # each in a folder of its own: what each records
+    expected = sorted(_entries(apart[0]) + _entries(apart[1]))
+    assert {role for role, _, _ in expected} == {"prime_pi", "nth_prime"}
+    for trial in range(trials):
+        together = _fresh(tmp_path / f"trial{trial}")
+        _audits([together])
+        assert _entries(together) == expected, f"trial {trial}"
+
+
+def _fresh(folder: Path) -> Path:
+    folder.mkdir()
+    return folder
