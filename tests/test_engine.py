@@ -46,9 +46,20 @@ def test_a_hang_at_a_small_input_is_hung_not_wrong(tmp_path):
 
 
 def test_nondeterminism_is_caught_by_reasking(tmp_path):
-    summary = audit("_candidates:prime_pi_random", "prime_pi", tmp_path, maximum=2000, seed=4)
-    assert any(f["status"] == "nondeterministic" for f in summary["failures"]) or \
-        any(f["status"] == "wrong" for f in summary["failures"])
+    # zoo member prime_pi_cached_odd: right on its first call at every x, prime_pi(x) - 1 when
+    # asked again at x >= 2 (its cache forgets the prime 2); reloaded so that its cache is empty.
+    import importlib
+
+    import sympy
+    import zoo.prime_pi_cached_odd
+    importlib.reload(zoo.prime_pi_cached_odd)
+    summary = audit("zoo.prime_pi_cached_odd:prime_pi", "prime_pi", tmp_path, maximum=2000, seed=4)
+    statuses = {f["status"] for f in summary["failures"]}
+    assert statuses == {"nondeterministic"}, summary["failures"][:3]
+    for finding in summary["failures"]:
+        (x,) = finding["arguments"]
+        assert finding["expected"] == int(sympy.primepi(x))     # the first answer was right
+        assert finding["got"] == finding["expected"] - 1
     assert not summary["passed"]
 
 

@@ -90,6 +90,8 @@ CRASHES_BEFORE_STOPPING = 5
 BISECTION_STEPS = 80
 #: Families re-asked first: strong pseudoprimes and Carmichael numbers have many liars.
 FRAGILE_FAMILIES = ("pseudoprimes", "carmichael", "semiprimes", "squares")
+#: Re-asked first: this many of the smallest inputs answered, and of those answered wrongly.
+REASK_SMALLEST, REASK_WRONG = 3, 3
 #: A passing listing longer than this is recorded abridged (a failing one is kept whole).
 LONGEST_RECORDED_LISTING = 16
 
@@ -375,16 +377,25 @@ class _Run:
                 return
 
     def reask(self, seed: int) -> None:
-        """Ask a sample of points again: half of it, where there are enough, from the families
-        on which a randomised test errs most often (its liars are many there)."""
+        """Ask a sample of points again: the smallest inputs answered (a cache filled wrongly
+        shows first there), the smallest answered wrongly (a wrong answer that changes when
+        asked again is nondeterminism, which a fix must know of), then the profile's sample,
+        half of it, where there are enough, from the families on which a randomised test errs
+        most often (its liars are many there)."""
         rng = random.Random(f"{seed}:reask")
         asked = sorted(a for a in self.answers if self.families.get(a) not in _reach.CLIMB_FAMILIES)
-        fragile = [arguments for arguments in asked if self.families.get(arguments) in FRAGILE_FAMILIES]
+        by_size = sorted(asked, key=lambda a: (self.role.magnitude(a), a))
+        wrong = [a for a in by_size if a in self.verdicts and not self.verdicts[a].passed]
+        first = list(dict.fromkeys(by_size[:REASK_SMALLEST] + wrong[:REASK_WRONG]))
+        fragile = [arguments for arguments in asked if self.families.get(arguments) in FRAGILE_FAMILIES
+                   and arguments not in first]
         chosen = rng.sample(fragile, min(self.profile.reask // 2, len(fragile)))
-        others = sorted(set(asked) - set(chosen))
+        others = sorted(set(asked) - set(chosen) - set(first))
         chosen += rng.sample(others, min(self.profile.reask - len(chosen), len(others)))
         over_budget = self.over_budget()
         chosen = [arguments for arguments in chosen if self.runnable(arguments, over_budget) is None]
+        if not over_budget:     # these are asked even after the early stop: they are few
+            chosen = first + [arguments for arguments in chosen if arguments not in first]
         for arguments, result in zip(chosen, self.target.call_many(chosen, stop_on_fault=True)):
             if result.status != OK:
                 self.judge("reask", arguments, result)
@@ -470,7 +481,7 @@ class _Run:
             if found is not None and (best is None or found[1] < best[0][1]):
                 best = (found, record)
         if best is None:
-            smallest = min(wrong, key=lambda r: r["arguments"])
+            smallest = min(wrong, key=lambda r: (self.role.magnitude(r["arguments"]), r["arguments"]))
             return {"kind": "smallest failing input", "input": smallest["arguments"],
                     "status": smallest["status"], "detail": smallest["detail"]}
         (kind, prime), record = best

@@ -172,6 +172,8 @@ def encode_value(value: object, depth: int = 0) -> object:
         return encode_value(bounded_answer(int(value.__index__())), depth + 1)
     if hasattr(value, "dtype") and getattr(value, "shape", None) == ():
         return encode_value(bounded_answer(value.item()), depth + 1)
+    if isinstance(value, float) or type(value).__name__.startswith("float"):
+        return {"float": repr(float(value))}
     tolist = getattr(value, "tolist", None)
     if callable(tolist):
         return encode_value(bounded_answer(tolist()), depth + 1)
