@@ -4,6 +4,9 @@ Configure one or more targets and the bundled suites run as test items::
 
     pytest --ntoracle-target prime_pi=mylib.count:prime_pi --ntoracle-profile ci
 
+(with files or folders named, ``pytest tests/test_fast.py ...``, the bundled suites run only
+with ``--ntoracle-bundled yes``; ``--ntoracle-bundled no`` leaves them out always)
+
 or, in ``pyproject.toml``::
 
     [tool.pytest.ini_options]
@@ -48,6 +51,8 @@ _HELP_PROFILE = "profile of the checks: quick, ci, deep or exhaustive (default q
 _HELP_SEED = "seed of the sampled points (default: drawn at random and printed in the header)"
 _HELP_REPORT = "write the records of every check item and a summary.json into DIR"
 _HELP_HYPOTHESIS = "load this hypothesis settings profile of oracle.strategies (ntoracle-ci, ntoracle-dev)"
+_HELP_BUNDLED = ("whether the bundled suites run: 'auto' (default) runs them unless files or "
+                 "folders are named on the command line, 'yes' always, 'no' never")
 _HELP_IN_PROCESS = ("call Python targets in the pytest process instead of an isolated worker: "
                     "faster, but the target can then change the verdict; only for code you trust")
 _HELP_TARGETS_INI = "targets to check, one 'ROLE = package.module:function' a line"
@@ -64,6 +69,8 @@ def pytest_addoption(parser):
     group.addoption("--ntoracle-report", metavar="DIR", dest="ntoracle_report", help=_HELP_REPORT)
     group.addoption("--ntoracle-hypothesis-profile", metavar="NAME",
                     dest="ntoracle_hypothesis_profile", help=_HELP_HYPOTHESIS)
+    group.addoption("--ntoracle-bundled", choices=("auto", "yes", "no"), default="auto",
+                    dest="ntoracle_bundled", help=_HELP_BUNDLED)
     group.addoption("--ntoracle-in-process", action="store_true", dest="ntoracle_in_process",
                     help=_HELP_IN_PROCESS)
     parser.addini("ntoracle_targets", _HELP_TARGETS_INI, type="linelist", default=[])
@@ -167,16 +174,28 @@ def pytest_collect_file(file_path, parent):
 @pytest.hookimpl(tryfirst=True)
 def pytest_collection_modifyitems(session, config, items):
     """With targets configured, the bundled suites join the collected items (before ``-k``,
-    ``-m``, ``--lf`` and ``--deselect`` choose among them)."""
+    ``-m``, ``--lf`` and ``--deselect`` choose among them), unless files or folders were named
+    on the command line (:func:`_bundled_wanted`)."""
     from .pytest_support._settings import SETTINGS
 
     settings = config.stash.get(SETTINGS, None)
-    if settings is None or not settings.active:
+    if settings is None or not settings.active or not _bundled_wanted(config):
         return
     from .pytest_support._nodes import BundledSuites
 
     root = BundledSuites.from_parent(session, name="ntoracle", nodeid="ntoracle")
     items.extend(_items_of(root, session))
+
+
+def _bundled_wanted(config) -> bool:
+    """The bundled suites follow pytest's own selection: with files or folders named on the
+    command line (``pytest tests/test_fast.py``) they run only when asked for with
+    ``--ntoracle-bundled yes``; with none named (the ini's testpaths or the current folder)
+    they run unless ``--ntoracle-bundled no``."""
+    choice = config.getoption("ntoracle_bundled", "auto")
+    if choice != "auto":
+        return choice == "yes"
+    return config.args_source != pytest.Config.ArgsSource.ARGS
 
 
 def _items_of(collector, session):

@@ -464,3 +464,16 @@ def test_huge_answers_in_hand_written_checks_fail_with_a_bounded_message(project
     assert "is_prime(7): wrong-type (type)" in output and "(10485760 characters)" in output
     assert "primes_in(0, 10): wrong (listing)" in output and "(100000 items in all)" in output
     assert max(len(line) for line in output.splitlines()) < 1000
+
+
+def test_bundled_suites_follow_pytest_s_own_selection(project):
+    project.makepyfile(test_light="def test_alone():\n    assert True\n")
+    target = ["--ntoracle-target", "is_prime=good_prime:is_prime", "--ntoracle-seed", "5"]
+    named = project.runpytest(*PLUGIN, *target, "test_light.py")
+    named.assert_outcomes(passed=1)             # a file named: only its tests run
+    asked = project.runpytest(*PLUGIN, *target, "test_light.py", "--ntoracle-bundled", "yes")
+    assert asked.parseoutcomes()["passed"] > 10
+    everything = project.runpytest(*PLUGIN, *target)
+    assert everything.parseoutcomes()["passed"] > 10          # nothing named: the bundled suites too
+    refused = project.runpytest(*PLUGIN, *target, "--ntoracle-bundled", "no")
+    refused.assert_outcomes(passed=1)
