@@ -6,7 +6,10 @@ missing -- primesieve's binding needs Debian's libprimesieve-dev, primecountpy
 needs libprimecount-dev -- and then only the tests that use it are skipped, each
 saying which library it wanted; collection of the rest of the module goes on.
 
->>> flint = reference("flint", "python-flint")
+>>> #: Optional reference libraries: module name -> PyPI name (what a skip reason names).
+OPTIONAL = {"flint": "python-flint", "primecountpy": "primecountpy", "primesieve": "primesieve"}
+
+flint = reference("flint", "python-flint")
 >>> flint.fmpz(7).is_prime()        # skips the calling test if python-flint is absent
 True
 """
@@ -47,6 +50,9 @@ def reference(module: str, distribution: str | None = None) -> _Reference:
     """A lazy stand-in for ``module``; ``distribution`` is its name on PyPI, for the skip reason."""
     return _Reference(module, distribution or module)
 
+
+#: Optional reference libraries: module name -> PyPI name (what a skip reason names).
+OPTIONAL = {"flint": "python-flint", "primecountpy": "primecountpy", "primesieve": "primesieve"}
 
 flint = reference("flint", "python-flint")
 primecountpy = reference("primecountpy")
