@@ -36,11 +36,15 @@ class SpeedModel:
 
     def observe(self, magnitude: int, seconds: float) -> None:
         """Remember one answered call (``magnitude`` ≥ 0)."""
-        magnitude = max(int(magnitude), 1)
+        if magnitude < 1:
+            magnitude = 1
         self._calls.append((magnitude, seconds))
         octave = magnitude.bit_length()
-        known = self._octaves.get(octave, (magnitude, seconds))
-        self._octaves[octave] = (max(magnitude, known[0]), max(seconds, known[1]))
+        known = self._octaves.get(octave)
+        if known is None:
+            self._octaves[octave] = (magnitude, seconds)
+        elif magnitude > known[0] or seconds > known[1]:        # once per octave, mostly
+            self._octaves[octave] = (max(magnitude, known[0]), max(seconds, known[1]))
 
     def largest(self) -> int | None:
         """The largest magnitude answered, or None."""
