@@ -6,10 +6,7 @@ missing -- primesieve's binding needs Debian's libprimesieve-dev, primecountpy
 needs libprimecount-dev -- and then only the tests that use it are skipped, each
 saying which library it wanted; collection of the rest of the module goes on.
 
->>> #: Optional reference libraries: module name -> PyPI name (what a skip reason names).
-OPTIONAL = {"flint": "python-flint", "primecountpy": "primecountpy", "primesieve": "primesieve"}
-
-flint = reference("flint", "python-flint")
+>>> from _references import flint
 >>> flint.fmpz(7).is_prime()        # skips the calling test if python-flint is absent
 True
 """
@@ -53,6 +50,15 @@ def reference(module: str, distribution: str | None = None) -> _Reference:
 
 #: Optional reference libraries: module name -> PyPI name (what a skip reason names).
 OPTIONAL = {"flint": "python-flint", "primecountpy": "primecountpy", "primesieve": "primesieve"}
+
+def skip_unless_installed(modules) -> None:
+    """Skip the calling test unless every module of ``modules`` (optional references) imports."""
+    import importlib.util
+
+    for module in modules or ():
+        if importlib.util.find_spec(module) is None:
+            pytest.skip(f"reference library {OPTIONAL.get(module, module)} is not installed")
+
 
 flint = reference("flint", "python-flint")
 primecountpy = reference("primecountpy")

@@ -17,7 +17,6 @@ from fractions import Fraction
 import gmpy2
 import mpmath
 import numpy as np
-import primecountpy
 import primesieve
 import pytest
 from mpmath import iv
@@ -26,6 +25,7 @@ from oracle import bounds
 from oracle._errors import InvalidInputError
 from oracle.bounds import _enclosures, _expressions, _selfcheck
 from oracle.bounds._catalogue import CatalogueError, load_catalogue
+from _references import primecountpy
 
 LIMIT = 10 ** 7                      # exhaustive range (issue 4, item 3)
 MARGIN = 2_000                       # sieve a little further, so every x <= LIMIT has a next prime

@@ -13,7 +13,6 @@ import random
 import sys
 
 import gmpy2
-import primecountpy
 import pytest
 import sympy
 from sympy.ntheory.primetest import mr as sympy_strong_test
@@ -23,6 +22,7 @@ from oracle.demo import SCENARIO, Defect, SoundRole
 from oracle.demo.brindle import (counting, factoring, listing, primality, sequence,
                                  table)
 from oracle.targets import load_callable
+from _references import primecountpy
 
 LIBRARY_DIRECTORY = pathlib.Path(table.__file__).parent
 

@@ -39,7 +39,7 @@ from pathlib import Path
 import pytest
 import yaml
 
-from _references import OPTIONAL
+from _references import OPTIONAL, skip_unless_installed
 from oracle import InvalidInputError, engine, targets
 
 CATALOGUE = Path(__file__).parent / "zoo" / "catalogue.yaml"
@@ -216,6 +216,7 @@ def test_default_run_holds_a_defective_member_of_every_kind_and_role():
 def test_ci_profile_judges_zoo_member(member, tmp_path, ledger):
     role = member["role"]
     timeout = float(member.get("timeout", ZOO_TIMEOUT))
+    skip_unless_installed(member.get("needs"))
     if member.get("exec"):
         target = targets.exec_target(_command(member["exec"]), role_name=role, timeout=timeout)
     else:

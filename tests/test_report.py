@@ -18,7 +18,6 @@ import re
 import shlex
 from html.parser import HTMLParser
 
-import primecountpy
 import pytest
 
 from oracle import engine, report, targets
@@ -27,6 +26,7 @@ from oracle.cli import build_parser
 from oracle.demo import SCENARIO
 from oracle.report import _json, _plot_data
 from oracle.report._html import render_html
+from _references import primecountpy
 
 PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"          # PNG specification, section 5.2
 HOSTILE = "<script>alert(1)</script>"

@@ -126,8 +126,7 @@ def test_bad_conventions_are_refused():
 def test_counts_from_the_nearest_known_count_agree_with_primecount_and_primesieve():
     # primecountpy and primesieve are test-only references; the points walk up and down
     # so that each count is derived from a neighbour (both directions of the identity)
-    import primesieve
-    from primecountpy import primecount
+    from _references import primecount, primesieve
     from oracle.roles._known_counts import KnownCounts
 
     points = [2**20 + 7, 2**20 - 5, 2**20 + 1, 3 * 2**20, 3 * 2**20 - 1, 5, 2, 3, 10**6 + 3]
