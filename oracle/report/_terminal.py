@@ -23,6 +23,8 @@ from ._describe import describe_divergence, verdict_of
 
 __all__ = ["Progress", "summary_table", "reach_lines", "readable_size"]
 
+#: "checked up to" lines printed per role under the table (the largest first).
+REACH_LINES_SHOWN = 3
 #: Width of the table when the stream is not a terminal (a log has no width of its own).
 LOG_WIDTH = 120
 
@@ -172,8 +174,12 @@ def summary_table(summaries: dict | list[dict], stream: TextIO | None = None, *,
                       Text(verdict.upper(), style=_VERDICT_STYLES[verdict] if wanted else ""))
     console.print(table)
     for summary in summaries:
-        for line in reach_lines(summary):
+        lines = reach_lines(summary)
+        for line in lines[:REACH_LINES_SHOWN]:
             console.print(Text(line))
+        if len(lines) > REACH_LINES_SHOWN:
+            console.print(Text(f"{summary.get('role')}: ... and {len(lines) - REACH_LINES_SHOWN} "
+                               "more families (all of them in the JSON summary and the HTML report)"))
     if cautions:
         for caution in CAUTIONS:
             console.print(Text(f"Caution: {caution}"))
