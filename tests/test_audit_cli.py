@@ -297,9 +297,12 @@ def primes_in(a, b):
 def test_huge_answers_are_shown_cut_in_the_terminal_and_stored_bounded(capsys, in_tmp, function,
                                                                         shown):
     (in_tmp / "huge_answers.py").write_text(HUGE_CANDIDATES)
+    # a generous --timeout: the isolated worker sends ten million items over its pipe, which
+    # takes seconds on a loaded machine, and the answer must be judged, not timed out
     code, out, err = run(capsys, "audit", f"huge_answers:{function}", "--profile", "quick",
                          "--max", "40", "--seed", "1", "--stop-after", "2", "--no-corpus",
-                         "--stream", "r.jsonl", "--json", "s.json", "--report", "rep")
+                         "--stream", "r.jsonl", "--json", "s.json", "--report", "rep",
+                         "--timeout", "60")
     assert code == 1, err
     assert shown in out                                         # the terminal
     page = (in_tmp / "rep" / "report.html").read_text()
