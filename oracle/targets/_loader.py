@@ -3,14 +3,12 @@
 from __future__ import annotations
 
 import importlib
-import re
 from typing import Callable
 
 from .._errors import InvalidInputError
+from ._worker import SPEC      # one pattern for the parent's check and the worker's import
 
 __all__ = ["load_callable", "SPEC"]
-
-SPEC = re.compile(r"^[A-Za-z_][\w.]*:[A-Za-z_][\w.]*$")
 
 
 def load_callable(spec: str) -> Callable:
