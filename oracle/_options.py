@@ -132,12 +132,13 @@ def check_output_file(file: str | os.PathLike, option: str, created: list | None
     mine: list = []
     try:
         _make_missing(os.path.dirname(path), file, option, mine)
-        if os.path.lexists(path):
-            with open(path, "ab"):
-                pass
-        else:
+        try:
             with open(path, "xb"):
                 pass
+        except FileExistsError:
+            with open(path, "ab"):      # it exists (perhaps made just now by a concurrent run)
+                pass
+        else:
             os.unlink(path)
     except (OSError, InvalidInputError) as error:
         _remove(mine)
@@ -161,7 +162,12 @@ def _make_missing(path: str, given, option: str, created: list) -> None:
     if not os.path.isdir(path):
         raise InvalidInputError(f"{option} {given}: {path} is not a folder")
     for folder in reversed(missing):
-        os.mkdir(folder)
+        try:
+            os.mkdir(folder)
+        except FileExistsError:
+            if not os.path.isdir(folder):
+                raise
+            continue            # a concurrent audit made it first: it is not ours to remove
         created.append(folder)
 
 

@@ -260,6 +260,26 @@ def test_writable_outputs_pass_the_check_and_missing_folders_are_made(capsys, in
     assert not [p for p in in_tmp.rglob(".ntoracle-probe-*")]
 
 
+def test_output_folder_made_by_a_concurrent_run_in_the_meantime_is_accepted(in_tmp, monkeypatch):
+    """Two audits starting at once both find ``.ntoracle/runs`` missing; the second one's
+    mkdir then meets the folder the first made, which is fine (the clean-clone CI met this)."""
+    import os
+    from oracle import _options
+    real_mkdir = os.mkdir
+
+    def raced_mkdir(path, *args, **kwargs):       # the other run makes it just before us
+        real_mkdir(path, *args, **kwargs)
+        raise FileExistsError(17, "File exists", path)
+
+    monkeypatch.setattr(os, "mkdir", raced_mkdir)
+    created: list = []
+    _options.check_output_folder(in_tmp / "a" / "b", "--report", created)
+    _options.check_output_file(in_tmp / "c" / "s.json", "--json", created)
+    assert (in_tmp / "a" / "b").is_dir() and (in_tmp / "c").is_dir()
+    assert created == []                       # made by the other run: not ours to remove
+    assert not (in_tmp / "c" / "s.json").exists()
+
+
 def test_replay_and_summary_check_the_json_path_and_demo_the_report_folder(capsys, in_tmp):
     (in_tmp / "afile").write_text("x\n")
     (in_tmp / "c.yaml").write_text("regressions:\n- {role: prime_pi, arguments: [10], "
