@@ -46,6 +46,7 @@ def build_parser() -> argparse.ArgumentParser:
         "A reference oracle of exact prime counts and proven bounds, for testing "
         "number-theory code."), epilog=CAUTION)
     parser.add_argument("--version", action="version", version=_version())
+    parser.add_argument("--no-store", action="store_true", help=_NO_STORE_HELP)
     commands = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_ArgumentParser)
 
     value = commands.add_parser("value", help="an exact value with its provenance",
@@ -81,7 +82,22 @@ def build_parser() -> argparse.ArgumentParser:
                                     "answer with its provenance.")
     _add_audit_parser(commands)
     _add_replay_parser(commands)
+    store = commands.add_parser(
+        "store", help="show or clear the answers kept between runs",
+        description="The oracle keeps answers that took long to compute in an SQLite file in "
+                    "the user's cache folder (NTORACLE_STORE=off or --no-store disables it; "
+                    "NTORACLE_STORE=DIR moves it).  'show' prints its size and entries, "
+                    "'clear' deletes them.")
+    store.add_argument("action", choices=("show", "clear"), help="show | clear")
+    store.add_argument("--json", action="store_true", help="print one JSON object")
+    for command in (value, commands.choices["audit"], commands.choices["replay"]):
+        command.add_argument("--no-store", action="store_true", default=argparse.SUPPRESS,
+                             help=_NO_STORE_HELP)
     return parser
+
+
+_NO_STORE_HELP = ("neither read nor keep answers in the on-disk store of slow answers "
+                  "(the same as NTORACLE_STORE=off)")
 
 
 ROLE_NAMES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
@@ -180,8 +196,10 @@ def main(argv: list[str] | None = None) -> int:
     if arguments.command is None:
         parser.print_help()
         return EXIT_USAGE
+    if arguments.no_store:
+        os.environ["NTORACLE_STORE"] = "off"       # child processes inherit the choice
     handler = {"value": _value, "bounds": _bounds, "demo": _demo, "tour": _tour, "audit": _audit,
-               "replay": _replay}[arguments.command]
+               "replay": _replay, "store": _store}[arguments.command]
     try:
         return handler(arguments)
     except OutOfReachError as error:
@@ -600,6 +618,31 @@ def _write_report(directory: str, summary: dict, stream: str | None, command: st
         report.write_html([(summary, engine.read_records(stream))], page,
                           command=f"ntoracle {command}")
         print(f"report: {page}")
+
+
+def _store(arguments) -> int:
+    from . import _store
+
+    store = _store.default_store()
+    if store is None:
+        print("ntoracle: the answer store is switched off (NTORACLE_STORE=off or --no-store)")
+        return EXIT_OK
+    if arguments.action == "clear":
+        removed = store.clear()
+        print(json.dumps({"path": str(store.path), "removed": removed}) if arguments.json
+              else f"cleared {removed} answer(s) from {store.path}")
+        return EXIT_OK
+    summary = store.summary()
+    if arguments.json:
+        print(json.dumps(summary))
+        return EXIT_OK
+    print(f"answer store: {summary['path']}")
+    print(f"  {summary['bytes']} bytes, {summary['entries']} answer(s) "
+          f"({summary['entries_this_version']} for this oracle version), "
+          f"{summary['seconds_saved_per_reuse']:g} s of computation saved per reuse")
+    for function, count in summary["by_function"].items():
+        print(f"  {function}: {count}")
+    return EXIT_OK
 
 
 def _show(value) -> str:

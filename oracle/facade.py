@@ -23,15 +23,21 @@ Routes and their provenance labels (docs/DESIGN.md, "The oracle's promise"):
     Baillie–PSW above that bound: no counterexample is known, none is proven
     impossible.  A probable prime is not a proven prime.
 
+Answers that took long to compute are kept on disk between runs
+(:mod:`oracle._store`); every route below passes through :func:`_kept`, the one
+place where the store is read and written.
+
 Heavy modules (numpy, gmpy2, primesieve) are imported inside the functions, so
 ``import oracle`` stays cheap for the pytest plugin.
 """
 
 from __future__ import annotations
 
+import functools
 import math
+import time
 from dataclasses import dataclass
-from typing import Iterable
+from typing import Callable, Iterable
 
 from ._bounded import bounded_text
 from ._errors import InvalidInputError, OutOfReachError
@@ -252,9 +258,49 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
 
 
 # --------------------------------------------------------------------------- #
+# Answers kept between runs
+# --------------------------------------------------------------------------- #
+
+def _kept(question: Callable[..., tuple[str, tuple]]):
+    """Serve the route from the on-disk store, and keep what it computes slowly.
+
+    ``question(*route_arguments)`` names the answer as ``(function, arguments)``,
+    e.g. ``("twin_pi", (x,))`` for ``_tuplet_pi("twins", x, budget)``.  Only
+    plain ``int`` and kind-name arguments are looked up; anything else (a bool,
+    a numpy integer, a float) goes straight to the route, which validates it.
+    An answer is kept when computing it took longer than the store's threshold.
+    """
+    def decorate(route):
+        @functools.wraps(route)
+        def served(*arguments, **options):
+            from ._store import default_store
+
+            store = default_store()
+            if store is None:
+                return route(*arguments, **options)
+            function, key_arguments = question(*arguments)
+            kept = store.get(function, key_arguments)
+            if kept is not None:
+                return Answer(function, key_arguments, kept[0], kept[1])
+            started = time.perf_counter()
+            result = route(*arguments, **options)
+            store.put(function, key_arguments, result.value, result.provenance,
+                      time.perf_counter() - started)
+            return result
+        served.uncached = route
+        return served
+    return decorate
+
+
+def _tuplet_name(kind) -> str:
+    return "twin_pi" if kind == "twins" else kind
+
+
+# --------------------------------------------------------------------------- #
 # Routes
 # --------------------------------------------------------------------------- #
 
+@_kept(lambda x, budget=None, progress=None: ("pi", (x,)))
 def _pi(x, budget, progress=None) -> Answer:
     x = require_int("x", x)
     budget = _budget(budget)
@@ -266,10 +312,11 @@ def _pi(x, budget, progress=None) -> Answer:
     return _cheapest("pi", x, candidates, budget)
 
 
+@_kept(lambda kind, x, budget=None: (_tuplet_name(kind), (x,)))
 def _tuplet_pi(kind, x, budget) -> Answer:
     x = require_int("x", x)
     budget = _budget(budget)
-    name = "twin_pi" if kind == "twins" else kind
+    name = _tuplet_name(kind)
     if x < 2:
         return Answer(name, (x,), 0, "sieve")
     table_function = "twin_pi" if kind == "twins" else None
@@ -278,6 +325,7 @@ def _tuplet_pi(kind, x, budget) -> Answer:
     return _cheapest(name, x, candidates, budget)
 
 
+@_kept(lambda kind, a, b, budget=None: ("count", (kind, a, b)))
 def _count(kind, a, b, budget) -> Answer:
     a = require_int("a", a, minimum=0)
     b = require_int("b", b)
@@ -300,6 +348,7 @@ def _count(kind, a, b, budget) -> Answer:
         f"{budget:g} s and no exact method counts {kind} over it")
 
 
+@_kept(lambda n, budget=None, progress=None: ("nth_prime", (n,)))
 def _nth_prime(n, budget, progress=None) -> Answer:
     n = require_int("n", n, minimum=1)
     budget = _budget(budget)
@@ -335,6 +384,7 @@ def _nth_prime_upper_bound(n: int) -> int:
     return int(n * (log_n + math.log(log_n)) * 1.01) + 10
 
 
+@_kept(lambda n: ("is_prime", (n,)))
 def _is_prime(n) -> Answer:
     n = require_int("n", n, minimum=0)
     from .exact import primality
@@ -345,6 +395,7 @@ def _is_prime(n) -> Answer:
     return Answer("is_prime", (n,), prime, primality.verdict(n) if prime else "deterministic")
 
 
+@_kept(lambda n: ("next_prime", (n,)))
 def _next_prime(n) -> Answer:
     n = require_int("n", n, minimum=0)
     from .exact import primality
@@ -353,6 +404,7 @@ def _next_prime(n) -> Answer:
     return Answer("next_prime", (n,), value, primality.verdict(value))
 
 
+@_kept(lambda n: ("prev_prime", (n,)))
 def _prev_prime(n) -> Answer:
     n = require_int("n", n, minimum=3)
     from .exact import primality
@@ -361,6 +413,7 @@ def _prev_prime(n) -> Answer:
     return Answer("prev_prime", (n,), value, primality.verdict(value))
 
 
+@_kept(lambda a, b: ("primes", (a, b)))
 def _primes(a, b) -> Answer:
     a = require_int("a", a, minimum=0)
     b = require_int("b", b)
