@@ -230,11 +230,18 @@ def _value(arguments) -> int:
     n = parse_integer(arguments.n)
     if arguments.budget is not None and not arguments.budget > 0:
         raise InvalidInputError(f"--budget {arguments.budget}: must be a positive number of seconds")
-    from . import report
+    import contextlib
 
-    with report.Progress(total=_PROGRESS_STEPS, description=f"{arguments.function}({n})") as shown:
+    with contextlib.ExitStack() as stack:
+        shown = []                  # the progress bar, opened (rich imported) on the first report
+
         def progress(fraction: float, stage: str) -> None:
-            shown.advance(max(0, round(fraction * _PROGRESS_STEPS) - shown.completed))
+            if not shown:
+                from . import report
+
+                shown.append(stack.enter_context(report.Progress(
+                    total=_PROGRESS_STEPS, description=f"{arguments.function}({n})")))
+            shown[0].advance(max(0, round(fraction * _PROGRESS_STEPS) - shown[0].completed))
 
         result = facade.answer(arguments.function, n, budget=arguments.budget, progress=progress)
     if arguments.json:

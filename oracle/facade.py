@@ -306,8 +306,11 @@ def _pi(x, budget, progress=None) -> Answer:
     budget = _budget(budget)
     if x < 2:
         return Answer("pi", (x,), 0, "sieve")
-    candidates = [_route_by_table("pi", "primes", x, budget),
-                  _route_by_combinatorial(x, budget, progress),
+    table = _route_by_table("pi", "primes", x, budget)
+    if table is not None and table.seconds == 0:
+        # A tabulated point: no route is cheaper, and the others need numpy to estimate.
+        return _cheapest("pi", x, [table], budget)
+    candidates = [table, _route_by_combinatorial(x, budget, progress),
                   _route_by_sieve("primes", x, budget)]
     return _cheapest("pi", x, candidates, budget)
 
