@@ -26,7 +26,6 @@ without the 4300-digit limit of decimal ``int``/``str`` conversion.
 
 from __future__ import annotations
 
-import hashlib
 import os
 import threading
 from pathlib import Path
@@ -106,6 +105,8 @@ def decode_value(text: str):
 
 
 def _digest(key: str, value: str, provenance: str) -> str:
+    import hashlib
+
     return hashlib.sha256("\x00".join((key, value, provenance)).encode()).hexdigest()
 
 

@@ -236,7 +236,8 @@ def _fixtures_directory() -> _Resource:
 
 def _load_file(filename: str, text: str) -> Table:
     try:
-        document = yaml.safe_load(text)
+        # libyaml's loader when present: the same safe constructor, ten times faster.
+        document = yaml.load(text, Loader=getattr(yaml, "CSafeLoader", yaml.SafeLoader))
     except yaml.YAMLError as error:
         raise OracleError(f"{filename}: not valid YAML ({error})") from None
     problem = _Problem(filename)

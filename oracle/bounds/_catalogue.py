@@ -141,7 +141,8 @@ def load_catalogue(path: str | Path | None = None) -> Catalogue:
     else:
         text, where = Path(path).read_text(encoding="utf-8"), str(path)
     try:
-        document = yaml.safe_load(text)
+        # libyaml's loader when present: the same safe constructor, ten times faster.
+        document = yaml.load(text, Loader=getattr(yaml, "CSafeLoader", yaml.SafeLoader))
     except yaml.YAMLError as exc:
         raise CatalogueError(f"{where}: not valid YAML ({exc})") from None
     if not isinstance(document, dict) or not isinstance(document.get("entries"), list):
