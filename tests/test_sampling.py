@@ -182,6 +182,20 @@ def test_factor_shapes_cover_every_factor_size_with_repeated_and_close_factors()
     assert len(sizes) > 15
 
 
+def test_trial_bounds_are_products_of_the_least_primes_above_each_limit():
+    points = set(_family("trial-bounds", ceiling=2**100))
+    for limit in _families.TRIAL_LIMITS:
+        p = sympy.nextprime(limit)
+        q = sympy.nextprime(p)
+        r = sympy.nextprime(q)
+        assert {p**2, p**3, p * q, p * q * r, p**2 * q} <= points
+    # 1009 is the least prime above 1000 (sympy): the witnesses of the zoo's factorisers
+    # that mishandle a cofactor left by trial division up to 1000
+    assert {1009**2, 1009 * 1013 * 1019} <= points
+    for n in list(points)[::5]:
+        assert sum(sympy.factorint(n).values()) >= 2
+
+
 @pytest.mark.parametrize("name", ["quick", "ci"])
 def test_new_families_respect_ceilings_and_heavy_caps(name):
     chosen = sampling.profile(name)

@@ -120,5 +120,5 @@ ROLE = Role(
     normalise=_normalise, judge=_judge, invalid_inputs=((0,), (-6,)),
     families=("exhaustive", "tables", "primes", "squares", "carmichael", "pseudoprimes",
               "semiprimes", "smooth", "certified", "boundaries", "uniform", "log-uniform",
-              "prime-powers", "mersenne-fermat", "factor-shapes"),
+              "prime-powers", "mersenne-fermat", "factor-shapes", "trial-bounds"),
 )

@@ -30,5 +30,5 @@ ROLE = Role(
     normalise=_normalise, judge=_judge, invalid_inputs=((-1,),),
     families=("exhaustive", "primes", "squares", "pseudoprimes", "carmichael", "semiprimes",
               "certified", "boundaries", "uniform", "log-uniform",
-              "prime-powers", "mersenne-fermat"),
+              "prime-powers", "mersenne-fermat", "trial-bounds"),
 )

@@ -12,8 +12,9 @@ Further families, each with its rationale beside it: answers that cross a word
 size (``answer-words``), prime powers and their neighbours (``prime-powers``),
 neighbourhoods of published pseudoprimes (``pseudoprime-neighbours``), starts
 of the bound catalogue's ranges (``bound-starts``), sieve seams at primes
-(``sieve-seams``), Mersenne and Fermat numbers (``mersenne-fermat``) and
-factorisation shapes by factor size (``factor-shapes``).
+(``sieve-seams``), Mersenne and Fermat numbers (``mersenne-fermat``),
+factorisation shapes by factor size (``factor-shapes``) and products of the
+primes next to common trial-division limits (``trial-bounds``).
 """
 
 from __future__ import annotations
@@ -325,6 +326,32 @@ def factor_shapes(ceiling, profile, rng) -> list[int]:
     return _below(found, ceiling)
 
 
+#: Limits at which trial division commonly hands over to another method (common practice:
+#: powers of ten and two from 10^2 to 2^32 -- a table of small primes, a cache line, a word).
+TRIAL_LIMITS = (100, 1000, 2**10, 10**4, 2**16, 10**5, 10**6, 2**20, 10**7, 2**24,
+                10**8, 2**32)
+
+
+def trial_bounds(ceiling, profile, rng) -> list[int]:
+    """Products of the least primes p < q < r above each limit L of :data:`TRIAL_LIMITS`,
+    and of the greatest prime below it: p², p³, p⁴, p·q, p²·q, p·q·r, 2·p², 6·p·q
+    (common practice: trial division up to L leaves the cofactor to a second method -- a
+    primality test that takes p² for prime, a rho split taken for two primes, a split that
+    stores a repeated prime once; the smallest such failing input is built from the least
+    primes above L)."""
+    from ..exact.primality import next_prime, prev_prime
+
+    found = set()
+    for limit in TRIAL_LIMITS:
+        p = next_prime(limit)
+        q = next_prime(p)
+        r = next_prime(q)
+        below = prev_prime(limit + 1)
+        found.update((p**2, p**3, p**4, p * q, p**2 * q, p * q * r, 2 * p**2, 6 * p * q,
+                      below**2, below * p))
+    return _below(found, ceiling)
+
+
 def _random_prime(bits: int, rng) -> int:
     from ..exact.primality import next_prime
 
@@ -351,6 +378,7 @@ FAMILIES = {
     "pseudoprime-neighbours": pseudoprime_neighbours, "bound-starts": bound_starts,
     "sieve-seams": sieve_seams, "sieving-prime-intervals": sieving_prime_intervals,
     "mersenne-fermat": mersenne_fermat, "factor-shapes": factor_shapes,
+    "trial-bounds": trial_bounds,
 }
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",
