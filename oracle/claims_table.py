@@ -180,6 +180,9 @@ def _line_entries(data: bytes, name: str, format: str):
         if header is None:
             header = _csv_header(fields, name, number)
             continue
+        if fields is not None and len(fields) < len(header) \
+                and all(column in _OPTIONAL_COLUMNS for column in header[len(fields):]):
+            fields = fields + [""] * (len(header) - len(fields))     # an empty trailing note
         if fields is None or len(fields) != len(header):
             yield number, BadRow(number, "malformed",
                                  f"expected {len(header)} comma-separated fields "
