@@ -90,6 +90,12 @@ class Row:
     argument: int
     claimed: object
     note: str = ""
+    written: str = ""          # the argument as the table wrote it, e.g. 10**40+10**12
+
+    @property
+    def call(self) -> str:
+        """``function(argument)`` as the table wrote it (``prime_pi(10**40)``)."""
+        return f"{self.function}({self.written or _shown(self.argument)})"
 
 
 @dataclass(frozen=True)
@@ -320,7 +326,9 @@ def _row(line: int, entry: dict) -> Row:
                                    f">= {_MINIMUM[function]}")
     claimed = _claimed(function, entry["claimed"])
     note = entry.get("note")
-    return Row(line, function, argument, claimed, "" if note is None else bounded_text(note, 200))
+    written = entry["argument"].strip() if isinstance(entry["argument"], str) else ""
+    return Row(line, function, argument, claimed, "" if note is None else bounded_text(note, 200),
+               "" if written == str(argument) or len(written) > 80 else written)
 
 
 def _unknown_function(function: object) -> str:
@@ -400,7 +408,7 @@ def _factorization(value: object) -> tuple[tuple[int, int], ...]:
 class _Judged:
     row: Row
     checks: list = field(default_factory=list)      # ClaimCheck, this row's own
-    pairs: list = field(default_factory=list)       # (ClaimCheck, other line), with neighbours
+    pairs: list = field(default_factory=list)       # (ClaimCheck, lower row, upper row)
     problem: BadRow | None = None
 
     @property
@@ -411,7 +419,7 @@ class _Judged:
     def verdict(self) -> str:
         if any(not check.passed for check in self.checks):
             return "refuted"
-        if any(not check.passed for check, _ in self.pairs):
+        if any(not check.passed for check, _, _ in self.pairs):
             return "conflicting"            # this row or its neighbour is wrong: not which
         return "confirmed" if self.exact else "consistent"
 
@@ -465,8 +473,8 @@ def _judge_neighbours(judged: list[_Judged], budget) -> int:
             a, b = first.row, second.row
             monotone = claims.check_monotone(name, [(a.argument, a.claimed),
                                                     (b.argument, b.claimed)])
-            first.pairs.append((monotone, b.line))
-            second.pairs.append((monotone, a.line))
+            first.pairs.append((monotone, a, b))
+            second.pairs.append((monotone, a, b))
             if a.argument == b.argument:
                 continue
             try:
@@ -475,8 +483,8 @@ def _judge_neighbours(judged: list[_Judged], budget) -> int:
             except OutOfReachError:
                 unchecked += 1
                 continue
-            first.pairs.append((difference, b.line))
-            second.pairs.append((difference, a.line))
+            first.pairs.append((difference, a, b))
+            second.pairs.append((difference, a, b))
     return unchecked
 
 
@@ -532,7 +540,7 @@ def _distinct_checks(judged: list[_Judged]) -> list:
     seen, checks = set(), []
     for entry in judged:
         checks.extend(entry.checks)
-        for check, _ in entry.pairs:
+        for check, _, _ in entry.pairs:
             if id(check) not in seen:
                 seen.add(id(check))
                 checks.append(check)
@@ -544,33 +552,28 @@ def _findings(judged: list[_Judged]) -> list[dict]:
     for entry in judged:
         for check in entry.checks:
             if not check.passed:
-                findings.append(_finding(check, (entry.row.line,), entry.row.function))
-        for check, other in entry.pairs:
+                findings.append(_finding(check, (entry.row.line,), entry.row.function,
+                                         _row_detail(check, entry.row)))
+        for check, first, second in entry.pairs:
             if not check.passed and id(check) not in seen:
                 seen.add(id(check))
-                findings.append(_finding(check, tuple(sorted((entry.row.line, other))),
-                                         entry.row.function))
+                findings.append(_finding(check, tuple(sorted((first.line, second.line))),
+                                         first.function, _pair_detail(check, first, second)))
     return sorted(findings, key=lambda finding: finding["lines"])
 
 
-def _finding(check, lines: tuple[int, ...], function: str) -> dict:
-    if check.check in ("monotone", "short-interval"):
-        detail = check.detail
-        if function == "prime_pi":   # oracle.claims says pi(x); the table says prime_pi(x)
-            detail = detail.replace("pi(", "prime_pi(")
-    else:
-        detail = _row_detail(check, function)
+def _finding(check, lines: tuple[int, ...], function: str, detail: str) -> dict:
     return {"kind": FINDING_KINDS.get(check.check, check.check), "lines": list(lines),
             "function": function, "arguments": list(check.arguments),
             "claimed": _plain(check.claimed), "expected": _plain(check.expected),
             "provenance": check.provenance, "check": check.check, "detail": detail}
 
 
-def _row_detail(check, function: str) -> str:
+def _row_detail(check, row: Row) -> str:
     """One sentence: what the row claims and what the oracle knows instead."""
-    call = f"{function}({', '.join(_shown(argument) for argument in check.arguments)})"
+    call = row.call
     claimed = (" * ".join(f"{p}^{e}" if e > 1 else f"{p}" for p, e in check.claimed)
-               if function == "factor" else _shown(check.claimed))
+               if row.function == "factor" else _shown(check.claimed))
     text = f"{call} claimed {claimed}"
     if check.check == "exact":
         return f"{text}; the exact value is {_shown(check.expected)}"
@@ -579,6 +582,19 @@ def _row_detail(check, function: str) -> str:
         return (f"{text}: {check.detail}; proven: {'?' if lower is None else _shown(lower)} <= "
                 f"{call} <= {'?' if upper is None else _shown(upper)}")
     return f"{text}: {check.detail}"
+
+
+def _pair_detail(check, first: Row, second: Row) -> str:
+    """One sentence on two neighbouring rows that cannot both be right."""
+    if check.check == "monotone" and first.argument == second.argument:
+        return f"two different values for {first.call}: {_shown(first.claimed)} and " \
+               f"{_shown(second.claimed)}"
+    if check.check == "monotone":
+        return (f"{second.call} = {_shown(second.claimed)} is less than {first.call} = "
+                f"{_shown(first.claimed)}, but {first.function} never decreases")
+    what = "primes" if first.function == "prime_pi" else "twin pairs (counted by p + 2)"
+    return (f"{second.call} - {first.call} = {_shown(check.claimed)}, but the interval between "
+            f"them holds {_shown(check.expected)} {what}")
 
 
 def _shown(value) -> str:
@@ -593,7 +609,7 @@ def _result(entry: _Judged) -> dict:
             "claimed": _plain(row.claimed), "verdict": entry.verdict, "note": row.note,
             "checks": [{"check": check.check, "passed": check.passed,
                         "expected": _plain(check.expected), "provenance": check.provenance}
-                       for check in entry.checks + [pair for pair, _ in entry.pairs]]}
+                       for check in entry.checks + [pair for pair, _, _ in entry.pairs]]}
 
 
 def _plain(value):

@@ -502,9 +502,14 @@ def _judge_table(arguments) -> int:
         summary["verdict"], EXIT_NO_VERDICT)
 
 
-def _print_table_summary(summary: dict, listed: int = 40) -> None:
-    """The verdict, every finding and bad row with its line, then the first ``listed`` rows
-    not refuted."""
+#: Findings and bad rows that ``judge-table`` prints on the terminal (report.txt has them all).
+_TABLE_FINDINGS_SHOWN = 50
+
+
+def _print_table_summary(summary: dict, listed: int = 40,
+                         shown: int = _TABLE_FINDINGS_SHOWN) -> None:
+    """The verdict, the first ``shown`` findings and bad rows with their lines, then the
+    first ``listed`` rows that were not refuted."""
     verdict = {"passed": "PASSED", "failed": "FAILED", "incomplete": "INCOMPLETE"}.get(
         summary["verdict"], "NO VERDICT")
     print(f"ntoracle judge-table: {summary['file']} ({summary['format']}), {summary['rows']} row(s)")
@@ -515,12 +520,15 @@ def _print_table_summary(summary: dict, listed: int = 40) -> None:
           f"checks passed")
     from .report._describe import show_value
 
-    for finding in summary["findings"]:
+    for finding in summary["findings"][:shown]:
         lines = " and ".join(str(line) for line in finding["lines"])
         print(f"  line {lines}: {finding['kind']}: {bounded_text(finding['detail'], 400)} "
               f"[{finding['provenance']}]")
-    for bad in summary["bad"]:
+    for bad in summary["bad"][:shown]:
         print(f"  line {bad['line']}: {bad['kind']}: {bounded_text(bad['detail'], 200)}")
+    hidden = max(0, len(summary["findings"]) - shown) + max(0, len(summary["bad"]) - shown)
+    if hidden:
+        print(f"  ... and {hidden} more finding(s) or bad row(s) (see --json or --report)")
     if listed:
         for result in summary["results"][:listed]:
             if result["verdict"] != "refuted":
@@ -548,7 +556,8 @@ def _write_table_report(directory: str, summary: dict, command: str) -> None:
     _write_json(os.path.join(directory, "summary.json"), summary)
     text = io.StringIO()
     with contextlib.redirect_stdout(text):
-        _print_table_summary(summary, listed=len(summary["results"]))
+        _print_table_summary(summary, listed=len(summary["results"]),
+                             shown=len(summary["findings"]) + len(summary["bad"]))
     with open(os.path.join(directory, "report.txt"), "w", encoding="utf-8") as handle:
         handle.write(text.getvalue())
     page = os.path.join(directory, "report.html")
