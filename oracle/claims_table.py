@@ -497,8 +497,8 @@ def audit_table(path, *, format: str | None = None,
     """Read and judge the table in ``path``; the summary as a JSON-ready dict.
 
     Keys: ``file``, ``format``, ``verdict`` (``passed``: no row refuted and none bad;
-    ``failed``: a row refuted or two in conflict; ``incomplete``: none refuted but some bad; ``no verdict``:
-    no row judged), ``passed``, ``rows``, ``confirmed``, ``consistent``, ``refuted``,
+    ``failed``: a row refuted or two in conflict; ``incomplete``: none refuted but some
+    could not be read or judged; ``no verdict``: the table has no rows), ``passed``, ``rows``, ``confirmed``, ``consistent``, ``refuted``,
     ``conflicting``, ``bad_rows``, ``checks``, ``passed_checks``, ``findings`` (``kind``, ``lines``,
     ``function``, ``arguments``, ``claimed``, ``expected``, ``provenance``, ``check``,
     ``detail``), ``bad`` (``line``, ``kind``, ``detail``), ``pairs_too_far_apart``,
@@ -514,10 +514,10 @@ def audit_table(path, *, format: str | None = None,
     checks = _distinct_checks(judged)
     if "refuted" in verdicts or "conflicting" in verdicts:
         verdict = "failed"
-    elif not judged:
-        verdict = "no verdict"
     elif bad:
         verdict = "incomplete"
+    elif not judged:
+        verdict = "no verdict"
     else:
         verdict = "passed"
     return {

@@ -278,3 +278,37 @@ def test_json_and_html_report(tmp_path, capsys):
     assert (tmp_path / "report" / "summary.json").exists()
     assert "line 2: wrong-value" in (tmp_path / "report" / "report.txt").read_text(encoding="utf-8")
     assert "line 2: wrong-value" in capsys.readouterr().out
+
+
+def test_hostile_tables_are_refused_or_reported_without_a_traceback(tmp_path):
+    bomb = 'a: &a ["x","x","x","x","x","x","x","x","x"]\n' + "".join(
+        f"{chr(98 + i)}: &{chr(98 + i)} [" + ",".join([f"*{chr(97 + i)}"] * 9) + "]\n" for i in range(8))
+    deep = "\n".join(["[" * 6000 + "]" * 6000,
+                      '{"function": "prime_pi", "argument": "10**10**9", "claimed": 1}',
+                      '{"function": "prime_pi", "argument": "' + "9" * 4500 + '", "claimed": 1}',
+                      '{"function": "prime_pi", "argument": 10, "claimed": 4}'])   # sympy: pi(10) = 4
+    tagged = ("- {function: prime_pi, argument: !!python/object/apply:os.system ['echo hi'], claimed: 1}\n"
+              "- {function: prime_pi, argument: 1:30, claimed: 24}\n")      # not sexagesimal 90
+    cases = {"bomb.yaml": (bomb, "aliases expanded"), "deep.jsonl": (deep, None),
+             "tagged.yaml": (tagged, None), "nested.yaml": ("- " + "[" * 200 + "]" * 200, "nested")}
+    for name, (text, message) in cases.items():
+        run = _run(str(_write(tmp_path, name, text)), "--json", str(tmp_path / f"{name}.json"),
+                   cwd=tmp_path)
+        assert run.returncode == 2, (name, run.stdout, run.stderr)     # refused, or bad rows
+        assert "Traceback" not in run.stderr and "Traceback" not in run.stdout
+        if message:
+            assert name in run.stderr and message in run.stderr
+    summary = json.loads((tmp_path / "deep.jsonl.json").read_text(encoding="utf-8"))
+    assert summary["verdict"] == "incomplete"
+    assert _kinds(summary) == {1: {"malformed"}, 2: {"bad-argument"}, 3: {"bad-argument"}}
+    assert _verdicts(summary) == {4: "confirmed"}
+    summary = json.loads((tmp_path / "tagged.yaml.json").read_text(encoding="utf-8"))
+    assert _kinds(summary) == {1: {"bad-argument"}, 2: {"bad-argument"}}
+    assert summary["results"] == [] and summary["verdict"] == "incomplete"
+
+
+def test_too_many_rows_is_refused(tmp_path, monkeypatch):
+    monkeypatch.setattr(claims_table, "MAX_ROWS", 3)
+    path = _write(tmp_path, "t.csv", "function,argument,claimed\n" + "prime_pi,10,4\n" * 4)
+    with pytest.raises(InvalidInputError, match="more than 3 rows"):
+        claims_table.audit_table(path)
