@@ -312,3 +312,20 @@ def test_too_many_rows_is_refused(tmp_path, monkeypatch):
     path = _write(tmp_path, "t.csv", "function,argument,claimed\n" + "prime_pi,10,4\n" * 4)
     with pytest.raises(InvalidInputError, match="more than 3 rows"):
         claims_table.audit_table(path)
+
+
+def test_nth_prime_beyond_exact_reach_must_be_prime_and_inside_its_bounds(tmp_path):
+    from oracle import bounds
+
+    interval = bounds.nth_prime(10**30)
+    middle = (interval.lower + interval.upper) // 2
+    prime = sympy.nextprime(middle)                     # sympy: a prime inside the interval
+    composite = prime + 1
+    assert not sympy.isprime(composite) and not sympy.isprime(10**29 + 7)
+    path = _write(tmp_path, "t.csv", "function,argument,claimed\n"
+                  f"nth_prime,10**30,{prime}\n"
+                  f"nth_prime,10**30,{composite}\n"
+                  f"nth_prime,10**30,{10**29 + 7}\n")
+    summary = claims_table.audit_table(path, budget=2)
+    assert _kinds(summary) == {3: {"not-prime"}, 4: {"not-prime", "outside-proven-interval"}}
+    assert _verdicts(summary) == {2: "consistent", 3: "refuted", 4: "refuted"}
