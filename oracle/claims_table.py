@@ -498,12 +498,14 @@ def audit_table(path, *, format: str | None = None,
 
     Keys: ``file``, ``format``, ``verdict`` (``passed``: no row refuted and none bad;
     ``failed``: a row refuted or two in conflict; ``incomplete``: none refuted but some
-    could not be read or judged; ``no verdict``: the table has no rows), ``passed``, ``rows``, ``confirmed``, ``consistent``, ``refuted``,
-    ``conflicting``, ``bad_rows``, ``checks``, ``passed_checks``, ``findings`` (``kind``, ``lines``,
+    could not be read or judged; ``no verdict``: the table has no rows), ``passed``,
+    ``rows``, ``confirmed``, ``consistent``, ``refuted``, ``conflicting``, ``bad_rows``,
+    ``checks``, ``passed_checks``, ``findings`` (``kind``, ``lines``,
     ``function``, ``arguments``, ``claimed``, ``expected``, ``provenance``, ``check``,
     ``detail``), ``bad`` (``line``, ``kind``, ``detail``), ``pairs_too_far_apart``,
-    ``results`` (one per judged row: ``line``, ``function``, ``argument``, ``claimed``,
-    ``verdict``, ``checks``), ``budget_seconds`` and ``timings``.
+    ``results`` (one per judged row: ``line``, ``function``, ``argument``, ``written`` (the
+    argument as the table wrote it, when that differs), ``claimed``, ``verdict``, ``note``,
+    ``checks``), ``budget_seconds`` and ``timings``.
     """
     started = time.perf_counter()
     rows, bad, format = read_table(path, format=format)
@@ -606,7 +608,8 @@ def _shown(value) -> str:
 def _result(entry: _Judged) -> dict:
     row = entry.row
     return {"line": row.line, "function": row.function, "argument": row.argument,
-            "claimed": _plain(row.claimed), "verdict": entry.verdict, "note": row.note,
+            "written": row.written, "claimed": _plain(row.claimed), "verdict": entry.verdict,
+            "note": row.note,
             "checks": [{"check": check.check, "passed": check.passed,
                         "expected": _plain(check.expected), "provenance": check.provenance}
                        for check in entry.checks + [pair for pair, _, _ in entry.pairs]]}

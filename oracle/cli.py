@@ -502,46 +502,11 @@ def _judge_table(arguments) -> int:
         summary["verdict"], EXIT_NO_VERDICT)
 
 
-#: Findings and bad rows that ``judge-table`` prints on the terminal (report.txt has them all).
-_TABLE_FINDINGS_SHOWN = 50
+def _print_table_summary(summary: dict, listed: int = 40, shown: int | None = None) -> None:
+    from .report import table_summary_lines
 
-
-def _print_table_summary(summary: dict, listed: int = 40,
-                         shown: int = _TABLE_FINDINGS_SHOWN) -> None:
-    """The verdict, the first ``shown`` findings and bad rows with their lines, then the
-    first ``listed`` rows that were not refuted."""
-    verdict = {"passed": "PASSED", "failed": "FAILED", "incomplete": "INCOMPLETE"}.get(
-        summary["verdict"], "NO VERDICT")
-    print(f"ntoracle judge-table: {summary['file']} ({summary['format']}), {summary['rows']} row(s)")
-    print(f"{verdict}: {summary['refuted']} row(s) refuted, {summary['conflicting']} in conflict "
-          f"with a neighbour, {summary['confirmed']} confirmed exactly, "
-          f"{summary['consistent']} consistent with the proven bounds and their neighbours, "
-          f"{summary['bad_rows']} not judged; {summary['passed_checks']} of {summary['checks']} "
-          f"checks passed")
-    from .report._describe import show_value
-
-    for finding in summary["findings"][:shown]:
-        lines = " and ".join(str(line) for line in finding["lines"])
-        print(f"  line {lines}: {finding['kind']}: {bounded_text(finding['detail'], 400)} "
-              f"[{finding['provenance']}]")
-    for bad in summary["bad"][:shown]:
-        print(f"  line {bad['line']}: {bad['kind']}: {bounded_text(bad['detail'], 200)}")
-    hidden = max(0, len(summary["findings"]) - shown) + max(0, len(summary["bad"]) - shown)
-    if hidden:
-        print(f"  ... and {hidden} more finding(s) or bad row(s) (see --json or --report)")
-    if listed:
-        for result in summary["results"][:listed]:
-            if result["verdict"] != "refuted":
-                provenance = ", ".join(sorted({check["provenance"] for check in result["checks"]}))
-                print(f"  line {result['line']}: {result['verdict']}: {result['function']}"
-                      f"({show_value(result['argument'], 60)}) = {show_value(result['claimed'], 60)}"
-                      f" [{provenance}]")
-        if len(summary["results"]) > listed:
-            print(f"  ... {len(summary['results']) - listed} more row(s) in the JSON summary")
-    if summary["pairs_too_far_apart"]:
-        print(f"{summary['pairs_too_far_apart']} neighbouring pair(s) too far apart for an exact "
-              "count of the interval between them (monotonicity still checked)")
-    print(f"time: {summary['timings']['total_seconds']:.2f} s; 'consistent' is evidence, not proof")
+    options = {} if shown is None else {"shown": shown}
+    print("\n".join(table_summary_lines(summary, listed=listed, **options)))
     print(CAUTION)
 
 
