@@ -329,3 +329,18 @@ def test_nth_prime_beyond_exact_reach_must_be_prime_and_inside_its_bounds(tmp_pa
     summary = claims_table.audit_table(path, budget=2)
     assert _kinds(summary) == {3: {"not-prime"}, 4: {"not-prime", "outside-proven-interval"}}
     assert _verdicts(summary) == {2: "consistent", 3: "refuted", 4: "refuted"}
+
+
+def test_the_readme_example_is_what_the_command_prints(tmp_path):
+    readme = (ROOT / "README.md").read_text(encoding="utf-8")
+    command = "ntoracle judge-table oracle/demo/claims-table.csv --quiet"
+    block = readme.split("$ " + command + "\n", 1)[1].split("```", 1)[0].splitlines()
+    whole = [line for number, line in enumerate(block)
+             if line.startswith("  line ") and "..." not in line
+             and not (number + 1 < len(block) and block[number + 1].startswith("      "))]
+    assert len(whole) >= 3
+    run = _run(*command.split()[2:], cwd=ROOT)
+    assert run.returncode == 1
+    printed = run.stdout.splitlines()
+    for line in whole:
+        assert line in printed, line
