@@ -1,4 +1,4 @@
-"""Judging a table of claimed values: every row of a file checked against the oracle.
+r"""Judging a table of claimed values: every row of a file checked against the oracle.
 
 A table of claims -- a legacy program's output, a paper's table, a cluster
 run -- is a file of rows, each naming a function (a role name such as
@@ -31,8 +31,20 @@ number of rows are bounded.
 Verdicts per row: ``confirmed`` (equals the exact value, or a valid
 factorisation), ``consistent`` (only bounds and neighbours checked, none
 refutes it: evidence, not proof), ``refuted`` (its own check failed) or
-``conflicting`` (it and a neighbour cannot both be right: one of them is wrong).  A confirmation by a
-``probable`` route (Baillie-PSW) is not a proof of primality.
+``conflicting`` (it and a neighbour cannot both be right: one of them is wrong).
+A confirmation by a ``probable`` route (Baillie-PSW) is not a proof of primality.
+
+Cost: one oracle answer per row, each bounded by the budget (seconds), and one
+sieve of the interval between each pair of neighbours short enough to sieve.
+The theorems behind the intervals are those of the bounds catalogue
+(``fixtures/bounds.yaml``: Dusart 2018, Axler 2019 and others, each with its source).
+
+>>> import pathlib, tempfile
+>>> path = pathlib.Path(tempfile.mkdtemp()) / "claims.csv"
+>>> _ = path.write_text("function,argument,claimed\nprime_pi,10**6,78498\nprime_pi,10**40,10**38\n")
+>>> summary = audit_table(path)
+>>> [(f["lines"], f["kind"]) for f in summary["findings"]], summary["verdict"]
+([([3], 'outside-proven-interval')], 'failed')
 """
 
 from __future__ import annotations
@@ -409,7 +421,6 @@ class _Judged:
     row: Row
     checks: list = field(default_factory=list)      # ClaimCheck, this row's own
     pairs: list = field(default_factory=list)       # (ClaimCheck, lower row, upper row)
-    problem: BadRow | None = None
 
     @property
     def exact(self) -> bool:
