@@ -435,16 +435,20 @@ class _Judged:
         return "confirmed" if self.exact else "consistent"
 
 
-def judge_table(rows: list[Row], *, budget: float | None = DEFAULT_BUDGET_SECONDS):
+def judge_table(rows: list[Row], *, budget: float | None = DEFAULT_BUDGET_SECONDS,
+                progress=None):
     """Judge each row, then each pair of neighbouring counting rows; returns
-    ``(judged rows, rows that could not be judged, pairs left unchecked)``."""
+    ``(judged rows, rows that could not be judged, pairs left unchecked)``.
+    ``progress``, if given, is called as ``progress(rows_done, rows_in_all)`` after each row."""
     judged: list[_Judged] = []
     not_judged: list[BadRow] = []
-    for row in rows:
+    for done, row in enumerate(rows, start=1):
         try:
             judged.append(_Judged(row, _judge_row(row, budget)))
         except OracleError as error:
             not_judged.append(BadRow(row.line, "not-judged", bounded_text(str(error), 300)))
+        if progress is not None:
+            progress(done, len(rows))
     unchecked = _judge_neighbours(judged, budget)
     return judged, not_judged, unchecked
 
@@ -504,7 +508,7 @@ def _judge_neighbours(judged: list[_Judged], budget) -> int:
 # --------------------------------------------------------------------------- #
 
 def audit_table(path, *, format: str | None = None,
-                budget: float | None = DEFAULT_BUDGET_SECONDS) -> dict:
+                budget: float | None = DEFAULT_BUDGET_SECONDS, progress=None) -> dict:
     """Read and judge the table in ``path``; the summary as a JSON-ready dict.
 
     Keys: ``file``, ``format``, ``verdict`` (``passed``: no row refuted and none bad;
@@ -516,11 +520,11 @@ def audit_table(path, *, format: str | None = None,
     ``detail``), ``bad`` (``line``, ``kind``, ``detail``), ``pairs_too_far_apart``,
     ``results`` (one per judged row: ``line``, ``function``, ``argument``, ``written`` (the
     argument as the table wrote it, when that differs), ``claimed``, ``verdict``, ``note``,
-    ``checks``), ``budget_seconds`` and ``timings``.
+    ``checks``), ``budget_seconds`` and ``timings``.  ``progress`` as for :func:`judge_table`.
     """
     started = time.perf_counter()
     rows, bad, format = read_table(path, format=format)
-    judged, not_judged, unchecked = judge_table(rows, budget=budget)
+    judged, not_judged, unchecked = judge_table(rows, budget=budget, progress=progress)
     bad = sorted(bad + not_judged, key=lambda entry: entry.line)
     findings = _findings(judged)
     verdicts = [entry.verdict for entry in judged]

@@ -493,7 +493,16 @@ def _judge_table(arguments) -> int:
 
     _check_outputs(json_file=arguments.json_file, report=arguments.report, runs=False)
     budget = arguments.budget if arguments.budget is not None else claims_table.DEFAULT_BUDGET_SECONDS
-    summary = claims_table.audit_table(arguments.file, format=arguments.format, budget=budget)
+    from . import report
+
+    with report.Progress(description="rows judged", quiet=arguments.quiet) as bar:
+        def progress(done: int, total: int) -> None:
+            if bar.total is None:
+                bar.set_total(total)
+            bar.advance()
+
+        summary = claims_table.audit_table(arguments.file, format=arguments.format,
+                                           budget=budget, progress=progress)
     _print_table_summary(summary, listed=0 if arguments.quiet else 40)
     _write_json(arguments.json_file, summary)
     if arguments.report:
