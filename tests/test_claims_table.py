@@ -201,16 +201,16 @@ def test_a_line_that_is_not_utf8_is_a_bad_row_and_a_yaml_file_is_refused(tmp_pat
         claims_table.audit_table(_write(tmp_path, "t.yaml", b"- {function: \xff}\n"))
 
 
-def test_file_level_problems_are_one_line_errors(tmp_path, monkeypatch):
+def test_file_level_problems_are_one_line_errors(tmp_path):
     with pytest.raises(InvalidInputError, match="cannot tell the format"):
         claims_table.audit_table(_write(tmp_path, "t.txt", "x"))
     with pytest.raises(InvalidInputError, match="header"):
         claims_table.audit_table(_write(tmp_path, "t.csv", "function,x,value\nprime_pi,1,0\n"))
     with pytest.raises(InvalidInputError, match="cannot read"):
         claims_table.audit_table(tmp_path / "missing.csv")
-    monkeypatch.setattr(claims_table, "MAX_BYTES", 100)
     with pytest.raises(InvalidInputError, match="more than the limit"):
-        claims_table.audit_table(_write(tmp_path, "big.csv", "function,argument,claimed\n" * 10))
+        claims_table.read_table(_write(tmp_path, "big.csv", "function,argument,claimed\n" * 10),
+                                max_bytes=100)
 
 
 def test_the_example_table_finds_exactly_its_planted_errors(tmp_path):
@@ -307,11 +307,11 @@ def test_hostile_tables_are_refused_or_reported_without_a_traceback(tmp_path):
     assert summary["results"] == [] and summary["verdict"] == "incomplete"
 
 
-def test_too_many_rows_is_refused(tmp_path, monkeypatch):
-    monkeypatch.setattr(claims_table, "MAX_ROWS", 3)
+def test_too_many_rows_is_refused(tmp_path):
     path = _write(tmp_path, "t.csv", "function,argument,claimed\n" + "prime_pi,10,4\n" * 4)
+    assert len(claims_table.read_table(path, max_rows=4)[0]) == 4
     with pytest.raises(InvalidInputError, match="more than 3 rows"):
-        claims_table.audit_table(path)
+        claims_table.read_table(path, max_rows=3)
 
 
 def test_nth_prime_beyond_exact_reach_must_be_prime_and_inside_its_bounds(tmp_path):
