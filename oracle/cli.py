@@ -201,9 +201,9 @@ def _add_judge_table_parser(commands) -> None:
                     "beyond it the proven interval, and between neighbouring prime_pi or "
                     "twin_pi rows monotonicity and the exact count of the short interval "
                     "between them.  Unreadable rows are reported with their line; the rest are "
-                    "judged.  Exit 0 no row refuted and none unreadable, 1 a row refuted, 2 a "
-                    "usage error, an unreadable file or unreadable rows (none refuted), 5 no "
-                    "row at all.",
+                    "judged.  Exit 0 no row refuted and none unreadable, 1 a row refuted or "
+                    "two neighbours in conflict, 2 a usage error, an unreadable file or "
+                    "unreadable rows (none refuted), 5 no row at all.",
         epilog=CAUTION)
     table.add_argument("file", metavar="FILE", help="a .csv, .jsonl or .yaml table of claims")
     table.add_argument("--format", choices=("csv", "jsonl", "yaml"), default=None,
@@ -489,12 +489,10 @@ def _exit_code(summary: dict) -> int:
 
 
 def _judge_table(arguments) -> int:
-    from . import claims_table
+    from . import claims_table, report
 
     _check_outputs(json_file=arguments.json_file, report=arguments.report, runs=False)
     budget = arguments.budget if arguments.budget is not None else claims_table.DEFAULT_BUDGET_SECONDS
-    from . import report
-
     with report.Progress(description="rows judged", quiet=arguments.quiet) as bar:
         def progress(done: int, total: int) -> None:
             if bar.total is None:
