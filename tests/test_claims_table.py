@@ -204,6 +204,8 @@ def test_a_line_that_is_not_utf8_is_a_bad_row_and_a_yaml_file_is_refused(tmp_pat
 def test_file_level_problems_are_one_line_errors(tmp_path):
     with pytest.raises(InvalidInputError, match="cannot tell the format"):
         claims_table.audit_table(_write(tmp_path, "t.txt", "x"))
+    with pytest.raises(InvalidInputError, match="format='xml'"):
+        claims_table.audit_table(_write(tmp_path, "t.csv", "x"), format="xml")
     with pytest.raises(InvalidInputError, match="header"):
         claims_table.audit_table(_write(tmp_path, "t.csv", "function,x,value\nprime_pi,1,0\n"))
     with pytest.raises(InvalidInputError, match="cannot read"):

@@ -75,6 +75,8 @@ class BadRow:
 
 
 class _Bad(Exception):
+    """Raised while reading one row: the kind of problem and one sentence."""
+
     def __init__(self, kind: str, detail: str):
         super().__init__(detail)
         self.kind = kind
@@ -93,6 +95,8 @@ def read_table(path, *, format: str | None = None, max_bytes: int = MAX_BYTES,
 
     name = str(path)
     format = format or _format_of(name)
+    if format not in FORMATS:
+        raise InvalidInputError(f"format={format!r}: expected one of {', '.join(FORMATS)}")
     data = read_bytes_limited(path, max_bytes=max_bytes)
     if format == "yaml":
         entries = _yaml_entries(data, name, max_bytes)
