@@ -18,7 +18,7 @@ from pathlib import Path
 
 from ._errors import InvalidInputError
 
-__all__ = ["load_limited", "read_limited", "check_limits", "MAX_BYTES", "MAX_ALIASES", "MAX_NODES", "MAX_DEPTH"]
+__all__ = ["load_limited", "read_limited", "read_bytes_limited", "check_limits", "MAX_BYTES", "MAX_ALIASES", "MAX_NODES", "MAX_DEPTH"]
 
 #: Default largest file, in bytes.
 MAX_BYTES = 8 * 2**20
@@ -55,16 +55,8 @@ def read_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
     refused (InvalidInputError naming it) above ``max_bytes`` -- a file before it is read --
     or when it is not UTF-8."""
     if isinstance(source, (str, os.PathLike)) and name is None:
-        path = Path(source)
-        name = str(path)
-        try:
-            size = path.stat().st_size
-            if size > max_bytes:
-                raise InvalidInputError(f"{name}: {size} bytes, more than the limit of {max_bytes}")
-            with path.open("rb") as handle:
-                data = handle.read(max_bytes + 1)        # a file growing meanwhile stays bounded
-        except OSError as error:
-            raise InvalidInputError(f"{name}: cannot read: {error.strerror or error}") from None
+        data = read_bytes_limited(source, max_bytes=max_bytes)
+        name = str(Path(source))
     else:
         data = source.encode("utf-8") if isinstance(source, str) else bytes(source)
         name = name or "<yaml>"
@@ -74,6 +66,23 @@ def read_limited(source: str | os.PathLike | bytes, *, name: str | None = None,
         return data.decode("utf-8"), name
     except UnicodeDecodeError as error:
         raise InvalidInputError(f"{name}: not UTF-8 text (byte {error.start})") from None
+
+
+def read_bytes_limited(path: str | os.PathLike, *, max_bytes: int = MAX_BYTES) -> bytes:
+    """The bytes of the file ``path``, refused (InvalidInputError naming it) above ``max_bytes``
+    before it is read, or when it cannot be read."""
+    name = str(Path(path))
+    try:
+        size = Path(path).stat().st_size
+        if size > max_bytes:
+            raise InvalidInputError(f"{name}: {size} bytes, more than the limit of {max_bytes}")
+        with Path(path).open("rb") as handle:
+            data = handle.read(max_bytes + 1)            # a file growing meanwhile stays bounded
+    except OSError as error:
+        raise InvalidInputError(f"{name}: cannot read: {error.strerror or error}") from None
+    if len(data) > max_bytes:
+        raise InvalidInputError(f"{name}: more than the limit of {max_bytes} bytes")
+    return data
 
 
 def check_limits(text: str, *, name: str = "<yaml>", max_aliases: int = MAX_ALIASES,

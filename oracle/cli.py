@@ -82,6 +82,7 @@ def build_parser() -> argparse.ArgumentParser:
                                     "answer with its provenance.")
     _add_audit_parser(commands)
     _add_replay_parser(commands)
+    _add_judge_table_parser(commands)
     store = commands.add_parser(
         "store", help="show or clear the answers kept between runs",
         description="The oracle keeps answers that took long to compute in an SQLite file in "
@@ -90,7 +91,8 @@ def build_parser() -> argparse.ArgumentParser:
                     "'clear' deletes them.")
     store.add_argument("action", choices=("show", "clear"), help="show | clear")
     store.add_argument("--json", action="store_true", help="print one JSON object")
-    for command in (value, commands.choices["audit"], commands.choices["replay"]):
+    for command in (value, commands.choices["audit"], commands.choices["replay"],
+                    commands.choices["judge-table"]):
         command.add_argument("--no-store", action="store_true", default=argparse.SUPPRESS,
                              help=_NO_STORE_HELP)
     return parser
@@ -190,6 +192,31 @@ def _add_replay_parser(commands) -> None:
             action.help = "replay only the entries of this role"
 
 
+def _add_judge_table_parser(commands) -> None:
+    table = commands.add_parser(
+        "judge-table", help="judge a file of claimed values (CSV, JSON lines, YAML) row by row",
+        description="Judge every row of a table of claimed values -- function (prime_pi, "
+                    "twin_pi, nth_prime, is_prime, next_prime, prev_prime, factor), argument, "
+                    "claimed value -- without running anything: exact where the oracle reaches, "
+                    "beyond it the proven interval, and between neighbouring prime_pi or "
+                    "twin_pi rows monotonicity and the exact count of the short interval "
+                    "between them.  Unreadable rows are reported with their line; the rest are "
+                    "judged.  Exit 0 no row refuted and none unreadable, 1 a row refuted or "
+                    "two neighbours in conflict, 2 a usage error, an unreadable file or "
+                    "unreadable rows (none refuted), 5 no row at all.",
+        epilog=CAUTION)
+    table.add_argument("file", metavar="FILE", help="a .csv, .jsonl or .yaml table of claims")
+    table.add_argument("--format", choices=("csv", "jsonl", "yaml"), default=None,
+                       help="the file's format (default: from its name)")
+    table.add_argument("--budget", type=seconds_option("--budget"), default=None, metavar="SECONDS",
+                       help="longest computation of one exact value (default 20); beyond it the "
+                            "row is judged by the proven interval and its neighbours")
+    table.add_argument("--json", dest="json_file", metavar="FILE", help="write the summary as JSON")
+    table.add_argument("--report", metavar="DIR",
+                       help="write summary.json, report.txt and report.html into DIR")
+    table.add_argument("--quiet", action="store_true", help="print only the verdict and the findings")
+
+
 def main(argv: list[str] | None = None) -> int:
     parser = build_parser()
     arguments = parser.parse_args(argv)
@@ -199,7 +226,8 @@ def main(argv: list[str] | None = None) -> int:
     if arguments.no_store:
         os.environ["NTORACLE_STORE"] = "off"       # child processes inherit the choice
     handler = {"value": _value, "bounds": _bounds, "demo": _demo, "tour": _tour, "audit": _audit,
-               "replay": _replay, "store": _store}[arguments.command]
+               "replay": _replay, "store": _store,
+               "judge-table": _judge_table}[arguments.command]
     try:
         return handler(arguments)
     except OutOfReachError as error:
@@ -458,6 +486,55 @@ def _exit_code(summary: dict) -> int:
                                       else "the run has no end record (interrupted or torn)"),
           file=sys.stderr)
     return EXIT_NO_VERDICT
+
+
+def _judge_table(arguments) -> int:
+    from . import claims_table, report
+
+    _check_outputs(json_file=arguments.json_file, report=arguments.report, runs=False)
+    budget = arguments.budget if arguments.budget is not None else claims_table.DEFAULT_BUDGET_SECONDS
+    with report.Progress(description="rows judged", quiet=arguments.quiet) as bar:
+        def progress(done: int, total: int) -> None:
+            if bar.total is None:
+                bar.set_total(total)
+            bar.advance()
+
+        summary = claims_table.audit_table(arguments.file, format=arguments.format,
+                                           budget=budget, progress=progress)
+    _print_table_summary(summary, listed=0 if arguments.quiet else 40)
+    _write_json(arguments.json_file, summary)
+    if arguments.report:
+        _write_table_report(arguments.report, summary, " ".join(sys.argv[1:]))
+    return {"failed": EXIT_FAILED, "passed": EXIT_OK, "incomplete": EXIT_USAGE}.get(
+        summary["verdict"], EXIT_NO_VERDICT)
+
+
+def _print_table_summary(summary: dict, listed: int = 40, shown: int | None = None) -> None:
+    from .report import table_summary_lines
+
+    options = {} if shown is None else {"shown": shown}
+    print("\n".join(table_summary_lines(summary, listed=listed, **options)))
+    print(CAUTION)
+
+
+def _write_table_report(directory: str, summary: dict, command: str) -> None:
+    """summary.json, report.txt and the self-contained report.html of a judged table."""
+    import contextlib
+    import io
+
+    from . import report
+
+    os.makedirs(directory, exist_ok=True)
+    _write_json(os.path.join(directory, "summary.json"), summary)
+    text = io.StringIO()
+    with contextlib.redirect_stdout(text):
+        _print_table_summary(summary, listed=len(summary["results"]),
+                             shown=len(summary["findings"]) + len(summary["bad"]))
+    with open(os.path.join(directory, "report.txt"), "w", encoding="utf-8") as handle:
+        handle.write(text.getvalue())
+    page = os.path.join(directory, "report.html")
+    report.write_table_html(summary, page, command=f"ntoracle {command}")
+    print(f"report: {page}")
 
 
 def _replay(arguments) -> int:

@@ -12,6 +12,8 @@
 * :func:`write_json` -- the summaries with the stable keys of :data:`SUMMARY_KEYS`
   (documented in :mod:`oracle.report._json`);
 * :func:`write_html` -- one self-contained HTML file with embedded plots;
+* :func:`table_summary_lines` and :func:`write_table_html` -- the terminal summary and the
+  same kind of page for a judged table of claims;
 * :func:`reproduce_command` -- the ``ntoracle audit`` command that repeats a run.
 
 Every report carries :data:`CAUTIONS`: a probable prime is not a proven prime;
@@ -24,7 +26,10 @@ from ._describe import describe_divergence
 from ._html import write_html
 from ._json import OPTIONAL_KEYS, SUMMARY_KEYS, write_json
 from ._reproduce import reproduce_command
+from ._table_html import write_table_html
+from ._table_text import table_summary_lines
 from ._terminal import Progress, summary_table
 
 __all__ = ["Progress", "summary_table", "write_json", "SUMMARY_KEYS", "OPTIONAL_KEYS",
-           "write_html", "reproduce_command", "describe_divergence", "CAUTIONS"]
+           "write_html", "write_table_html", "table_summary_lines", "reproduce_command",
+           "describe_divergence", "CAUTIONS"]
