@@ -11,7 +11,7 @@ import primesieve
 import pytest
 
 from _auditing import audit
-from _references import primecountpy
+from _references import primecountpy, reference
 from oracle import engine, targets
 from oracle.engine import AuditOptions, _reach, _timeouts, summarise
 from oracle.engine._speed import NOISE, SpeedModel
@@ -112,6 +112,25 @@ def test_the_climb_steps_are_table_points_and_one_random_point_per_octave():
     assert [size for size, _, _ in steps] == sorted(size for size, _, _ in steps)
 
 
+def test_the_answer_word_steps_are_where_the_answer_crosses_a_power_of_two():
+    import random
+
+    sympy = reference("sympy")
+    primecount = reference("primecountpy", "primecountpy")
+    steps = _reach._steps("prime_pi", 2**32 + 2**20, random.Random(1))
+    crossings = [inputs for _, family, inputs in steps if family == "climb-answer-words"]
+    assert [50685770166, 50685770167] in crossings                  # the count passes 2^31
+    for below, at in crossings[:3] + crossings[-1:]:
+        count = primecount.prime_pi(at)
+        assert count & (count - 1) == 0 and primecount.prime_pi(below) == count - 1
+    steps = _reach._steps("nth_prime", 2**28, random.Random(1))
+    crossings = [inputs for _, family, inputs in steps if family == "climb-answer-words"]
+    assert crossings and all(n > 2**28 for inputs in crossings for n in inputs)
+    for n, following in crossings[:2]:
+        p, q = primecount.nth_prime(n), primecount.nth_prime(following)
+        assert p < 2**(q.bit_length() - 1) < q and sympy.isprime(p)   # p_n below 2^k, p_(n+1) above
+
+
 def test_the_oracle_cost_estimate_follows_its_routes():
     budget = 10.0
     assert _reach.oracle_seconds("prime_pi", 10**20, budget) < 1          # a table point
@@ -152,12 +171,12 @@ def test_timeout_classification():
     assert _timeouts.obviously_hung(5000, speed, 10.0, invalid=False)            # small input
     assert _timeouts.obviously_hung(2**40, speed, 10.0, invalid=True)            # outside the domain
     assert _timeouts.obviously_hung(2**33, speed, 10.0, invalid=False) is None
-    assert _timeouts.after_retry(2**33, speed, 10.0, 40.0)[0] == "too-slow"     # 16 s projected
+    assert _timeouts.after_retry(2**33, speed.project(2**33), 10.0, 40.0)[0] == "too-slow"     # 16 s projected
     fast = SpeedModel()
     fast.observe(2**32, 0.001)
     assert _timeouts.obviously_hung(2**32 + 1, fast, 10.0, invalid=False)       # answered at 2^32
     fast.observe(2**20, 0.0005)
-    assert _timeouts.after_retry(2**40, fast, 10.0, 40.0)[0] == "hung"          # tiny projection
+    assert _timeouts.after_retry(2**40, fast.project(2**40), 10.0, 40.0)[0] == "hung"          # tiny projection
 
 
 #: Growing sizes for the sleepy candidate: answered (12, 24, 40 ms), answered on the retry only

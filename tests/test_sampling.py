@@ -95,6 +95,8 @@ import sympy
 
 from oracle.sampling import _families
 
+from _references import reference
+
 #: OEIS A051439, prime(2^k + 1) for k = 0..28 (data section, read with the search tool).
 A051439 = (3, 5, 11, 23, 59, 137, 313, 727, 1621, 3673, 8167, 17881, 38891, 84047, 180511,
            386117, 821647, 1742539, 3681149, 7754081, 16290073, 34136059, 71378603, 148948141,
@@ -115,6 +117,12 @@ def test_prime_at_power_of_two_agrees_with_oeis_a051439_and_sympy():
     points = _family("answer-words", ceiling=2**20)
     assert {sympy.primepi(x) for x in points if x in (820640, 821640, 821641)} <= {2**16 - 1, 2**16}
     assert 821640 in points and 821641 in points and sympy.primepi(821640) == 2**16 - 1
+
+
+def test_prime_at_power_of_two_agrees_with_primecountpy():
+    primecount = reference("primecountpy", "primecountpy")
+    for k, p in _families.PRIME_AT_POWER_OF_TWO.items():
+        assert primecount.nth_prime(2**k) == p, k
 
 
 def test_twin_answer_words_step_the_twin_count_across_two_to_the_k():

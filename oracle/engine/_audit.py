@@ -22,7 +22,9 @@ The order of work:
    then, for counting roles, the climb above the sampled points
    (:mod:`oracle.engine._reach`): table points ± 1 and random points per
    octave, as high as the candidate's speed, the oracle's cost and the time
-   budget allow; each family's reach is recorded (``reach`` records);
+   budget allow; for primality, next/prev prime and factor the climb by bit
+   size (:mod:`oracle.engine._reach_bits`) up to 2²⁰⁴⁸; each family's reach
+   is recorded (``reach`` records);
 3. a sample of the sampled answers is asked again: a different answer is
    "nondeterministic";
 4. the role's identities across answers (monotone counts, short-interval
@@ -70,7 +72,7 @@ from .._bounded import bounded_text
 from ..roles import AbsurdAnswer, Conventions, Role, WrongType
 from ..targets import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT
 from ..targets._worker import Overlong, Oversized, contains_oversized
-from . import _reach, _timeouts
+from . import _reach, _reach_bits, _timeouts
 from ._corpus import load_corpus, record_failures
 from ._records import RecordStream, failure_statuses, jsonable, summarise
 from ._speed import SpeedModel
@@ -89,6 +91,8 @@ CRASHES_BEFORE_STOPPING = 5
 #: Steps of bisection at most (2**64 needs 64).
 BISECTION_STEPS = 80
 #: Families re-asked first: strong pseudoprimes and Carmichael numbers have many liars.
+#: Families of the climbs above the sampled points (not re-asked: they are few and costly).
+CLIMBS = _reach.CLIMB_FAMILIES + (_reach_bits.CLIMB_BITS,)
 FRAGILE_FAMILIES = ("pseudoprimes", "carmichael", "semiprimes", "squares")
 #: Re-asked first: this many of the smallest inputs answered, and of those answered wrongly.
 REASK_SMALLEST, REASK_WRONG = 3, 3
@@ -214,7 +218,9 @@ class _Run:
         call too slow, or the result of a longer retry that answered (to be judged)."""
         magnitude = self.role.magnitude(arguments)
         timeout = self.call_timeout()
-        reason = _timeouts.obviously_hung(magnitude, self.speed, timeout, invalid=invalid)
+        by_digits = family == _reach_bits.CLIMB_BITS
+        reason = None if by_digits else _timeouts.obviously_hung(magnitude, self.speed, timeout,
+                                                                  invalid=invalid)
         retried = None
         if reason is None and self.slow_sizes and magnitude >= min(self.slow_sizes):
             status = _timeouts.TOO_SLOW           # no retry: a smaller call was too slow already
@@ -226,7 +232,12 @@ class _Run:
                 again = self._retry(arguments, allowed)
                 if again.status != TIMEOUT:
                     return again
-            status, reason = _timeouts.after_retry(magnitude, self.speed, timeout, retried)
+            if by_digits:
+                projected = self.speed.project_by_digits(magnitude, _reach_bits.PROOF_GROWTH,
+                                                         smaller_only=True)
+            else:
+                projected = self.speed.project(magnitude)
+            status, reason = _timeouts.after_retry(magnitude, projected, timeout, retried)
         else:
             status = _timeouts.HUNG
         if status == _timeouts.HUNG:
@@ -383,7 +394,7 @@ class _Run:
         half of it, where there are enough, from the families on which a randomised test errs
         most often (its liars are many there)."""
         rng = random.Random(f"{seed}:reask")
-        asked = sorted(a for a in self.answers if self.families.get(a) not in _reach.CLIMB_FAMILIES)
+        asked = sorted(a for a in self.answers if self.families.get(a) not in CLIMBS)
         by_size = sorted(asked, key=lambda a: (self.role.magnitude(a), a))
         wrong = [a for a in by_size if a in self.verdicts and not self.verdicts[a].passed]
         first = list(dict.fromkeys(by_size[:REASK_SMALLEST] + wrong[:REASK_WRONG]))
@@ -591,6 +602,7 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
             run.ask_invalid([("invalid-input", arguments) for arguments in own_invalid])
             run.write_reach(samples)
             _reach.climb(run, seed)
+            _reach_bits.climb(run, seed)
             run.reask(seed)
             run.relations()
         found = run.divergence()

@@ -11,7 +11,15 @@ in increasing size, with two families:
     integers (π(B ± 1) = π(B) ± [B ± 1 prime]);
 ``climb-random``
     one seeded random point in each octave [2^j, 2^(j+1)), where the oracle's
-    combinatorial method (or its sieve) answers within its budget.
+    combinatorial method (or its sieve) answers within its budget;
+``climb-answer-words``
+    the points where the *answer* steps from 2^k − 1 to 2^k, so that a count or
+    a prime kept in a k-bit word wraps there: for π, x = p_N − 1 and p_N with
+    N = 2^k (:data:`oracle.sampling._families.PRIME_AT_POWER_OF_TWO`, up to
+    k = 40); for p_n, n = π(2^k) and π(2^k) + 1 (π(2^k) from OEIS A007053, so
+    p_n steps over 2^k).  Twin counts cross 2^k beyond 2^16 only above the
+    oracle's cheap sieve, so π₂ has no such steps here (the sampled
+    ``twin-answer-words`` go up to 2^16).
 
 Before each step the cost is estimated, never just tried: the candidate's time
 per call is projected from the calls already made (:mod:`oracle.engine._speed`)
@@ -24,7 +32,9 @@ budget, kept for re-asking and localising; a random step may take only
 higher).  A family stops for good at the
 first step that does not fit, and the reason is recorded (a ``reach`` record):
 "candidate speed", "oracle budget", "declared domain (--max)", "time budget",
-"after failures", or "end of the oracle's tables".  A step that finds a defect
+"after failures", or "end of the oracle's tables".  Where a call costs more than
+:data:`THIN_ABOVE`, the table steps thin out to powers of ten and a few word
+sizes, one input each, so that the time goes to larger sizes.  A step that finds a defect
 ends the climb: the localisation (bisection) takes it from there.
 """
 
@@ -33,11 +43,12 @@ from __future__ import annotations
 import random
 
 from .. import facade, tables
+from ..sampling._families import PRIME_AT_POWER_OF_TWO
 
 __all__ = ["climb", "CLIMB_FAMILIES", "STOP_REASONS", "oracle_seconds", "CALL_SHARE"]
 
-CLIMB_TABLES, CLIMB_RANDOM = "climb-tables", "climb-random"
-CLIMB_FAMILIES = (CLIMB_TABLES, CLIMB_RANDOM)
+CLIMB_TABLES, CLIMB_RANDOM, CLIMB_ANSWERS = "climb-tables", "climb-random", "climb-answer-words"
+CLIMB_FAMILIES = (CLIMB_TABLES, CLIMB_RANDOM, CLIMB_ANSWERS)
 
 CANDIDATE_SPEED, ORACLE_BUDGET, DECLARED_DOMAIN = ("candidate speed", "oracle budget",
                                                    "declared domain (--max)")
@@ -49,8 +60,15 @@ STOP_REASONS = (CANDIDATE_SPEED, ORACLE_BUDGET, DECLARED_DOMAIN, TIME_BUDGET, AF
 _FOR_EVERY_LARGER_STEP = (CANDIDATE_SPEED, DECLARED_DOMAIN, AFTER_FAILURES)
 #: The oracle's function of each role that climbs, as named by :mod:`oracle.tables`.
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime"}
-#: Largest share of the per-call timeout a projected call may take.
-CALL_SHARE = 0.5
+#: Largest share of the per-call timeout a projected call may take (a call that then
+#: times out on a loaded machine is asked again with a longer limit, see
+#: :mod:`oracle.engine._timeouts`).
+CALL_SHARE = 0.75
+#: Above this projected time per call, the climb thins out: a table step asks the table
+#: point alone (not its neighbours) and only at powers of ten and at the word sizes of
+#: :data:`THIN_POWERS_OF_TWO`, so that the time left goes to larger sizes.
+THIN_ABOVE = 0.25
+THIN_POWERS_OF_TWO = (53, 63, 64, 96, 128)
 #: Share of the time budget kept for the phases after the climb.
 RESERVE = 0.1
 #: Share of the time left that one random step may take: the table points, whose reference
@@ -84,7 +102,22 @@ def _steps(role_name: str, start: int, rng: random.Random) -> list[tuple[int, st
         if low < 1 << (j + 1):
             x = rng.randrange(low, 1 << (j + 1))
             steps.append((x, CLIMB_RANDOM, [x]))
+    steps.extend(_answer_word_steps(role_name, start))
     return sorted(steps, key=lambda step: (step[0], step[1]))
+
+
+def _answer_word_steps(role_name: str, start: int) -> list[tuple[int, str, list[int]]]:
+    """The ``climb-answer-words`` steps above ``start`` (see the module's docstring)."""
+    if role_name == "prime_pi":
+        crossings = [[p - 1, p] for p in PRIME_AT_POWER_OF_TWO.values()]
+    elif role_name == "nth_prime":
+        counts = [count for x, (count, _source) in tables.values("pi").items()
+                  if x & (x - 1) == 0]
+        crossings = [[count, count + 1] for count in counts]
+    else:
+        return []
+    return [(max(inputs), CLIMB_ANSWERS, inputs) for inputs in sorted(crossings)
+            if min(inputs) > start]
 
 
 def climb(run, seed: int) -> None:
@@ -109,6 +142,10 @@ def climb(run, seed: int) -> None:
             for name in CLIMB_FAMILIES:
                 stopped.setdefault(name, (DECLARED_DOMAIN, size))
             break
+        if family == CLIMB_TABLES and _thinned(run, inputs):
+            inputs = _thin(inputs)
+            if not inputs:
+                continue
         size = max(inputs)
         share = RANDOM_SHARE if family == CLIMB_RANDOM else 1.0
         reason = _why_not(run, size, inputs, timeout, budget, share)
@@ -134,6 +171,21 @@ def climb(run, seed: int) -> None:
         run.stream.write({"type": "reach", "family": family, "stopped": reason,
                           "largest": largest.get(family), "next": following,
                           "elapsed": run.elapsed()})
+
+
+def _thinned(run, inputs: list[int]) -> bool:
+    """Whether a table step is in the expensive part of the climb (see :data:`THIN_ABOVE`)."""
+    projected = run.speed.project(max(inputs))
+    return projected is not None and projected > THIN_ABOVE
+
+
+def _thin(inputs: list[int]) -> list[int]:
+    """The table point of a step (its middle input) if it is a power of ten or one of
+    :data:`THIN_POWERS_OF_TWO`, else nothing."""
+    point = inputs[len(inputs) // 2]
+    power_of_two = point & (point - 1) == 0 and point.bit_length() - 1 in THIN_POWERS_OF_TWO
+    power_of_ten = len(str(point)) <= 40 and str(point).rstrip("0") == "1"
+    return [point] if power_of_two or power_of_ten else []
 
 
 def _why_not(run, size: int, inputs: list[int], timeout: float, budget: float,

@@ -78,6 +78,20 @@ class SpeedModel:
             return t1
         return max(t1, NOISE) * (magnitude / m1) ** self.growth()
 
+    def project_by_digits(self, magnitude: int, growth: float, *,
+                          smaller_only: bool = False) -> float | None:
+        """Projected seconds of one call at ``magnitude`` when a call's cost grows as the
+        ``growth``-th power of the number of digits: the largest projection from the slowest
+        call of each octave of at least half the digits (below the octave of ``magnitude``
+        only, with ``smaller_only``).  Within one octave the cost may vary by orders of
+        magnitude -- a composite is rejected at once where a prime of the same size needs a
+        proof -- so the slowest call of each octave counts.  None when no call qualifies."""
+        digits = max(int(magnitude), 1).bit_length()
+        projections = [max(seconds, NOISE) * max(digits / octave, 1.0) ** growth
+                       for octave, (_, seconds) in self._octaves.items()
+                       if 2 * octave >= digits and (octave < digits or not smaller_only)]
+        return max(projections, default=None)
+
     def answered_quickly_at_least(self, magnitude: int, seconds: float) -> bool:
         """Whether some call at a magnitude ≥ ``magnitude`` was answered within ``seconds``."""
         return any(m >= magnitude and t <= seconds for m, t in self._calls)

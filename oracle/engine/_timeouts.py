@@ -14,7 +14,11 @@ A timeout alone does not say which.  It is *hung* when
 It is *too slow* when the retry does not answer either and the calls at
 smaller sizes got progressively slower: their projection to this size is at
 least :data:`SLOW_SHARE` of the timeout.  A retry that answers is judged like
-any answer.  Too slow is not a failure unless asked (``slow_fails``); it ends
+any answer.  In the climb by bit size (:mod:`oracle.engine._reach_bits`) the
+cost depends on what the input is as much as on its size (a composite is
+rejected at once, a prime of the same size needs a proof), so there only the
+retry decides, and the projection comes from the octaves below, growing with
+a steep power of the digits.  Too slow is not a failure unless asked (``slow_fails``); it ends
 the candidate's reach ("candidate speed").
 """
 
@@ -47,11 +51,11 @@ def obviously_hung(magnitude: int, speed: SpeedModel, timeout: float, *, invalid
     return None
 
 
-def after_retry(magnitude: int, speed: SpeedModel, timeout: float, retried: float | None
+def after_retry(magnitude: int, projected: float | None, timeout: float, retried: float | None
                 ) -> tuple[str, str]:
     """``(status, reason)`` of a timeout whose retry (``retried`` seconds allowed, None if there
-    was no time for one) did not answer either."""
-    projected = speed.project(magnitude)
+    was no time for one) did not answer either; ``projected``: the seconds the smaller calls
+    project at this size (:class:`oracle.engine._speed.SpeedModel`), None if none answered."""
     again = (f"nor within {retried:.3g} s when asked again" if retried is not None
              else "no time left to ask again")
     if projected is not None and projected >= SLOW_SHARE * timeout:

@@ -156,14 +156,18 @@ def prime_indices(ceiling, profile, rng) -> list[int]:
     return _below(found, ceiling)
 
 
-#: p_N for N = 2^k, k = 1..32 (the oracle's nth_prime: sieve up to k = 27, the
+#: p_N for N = 2^k, k = 1..40 (the oracle's nth_prime: sieve up to k = 27, the
 #: Deleglise-Rivat count above; tests compare next_prime(p_N) with OEIS A051439,
-#: prime(2^k + 1)).  p_N for N = 2^53 and 2^63 is beyond the oracle's reach.
+#: prime(2^k + 1), up to k = 27 and every value with primecountpy, a test-only reference).
+#: p_N for N = 2^53 and 2^63 (about 3.4e17 and 4.3e20) is beyond the oracle's reach.
 PRIME_AT_POWER_OF_TWO = {
     1: 3, 2: 7, 3: 19, 4: 53, 5: 131, 6: 311, 7: 719, 8: 1619, 9: 3671, 10: 8161, 11: 17863,
     12: 38873, 13: 84017, 14: 180503, 15: 386093, 16: 821641, 17: 1742537, 18: 3681131,
     19: 7754077, 20: 16290047, 21: 34136029, 22: 71378569, 23: 148948139, 24: 310248241,
-    25: 645155197, 26: 1339484197, 27: 2777105129, 31: 50685770167, 32: 104484802057,
+    25: 645155197, 26: 1339484197, 27: 2777105129, 28: 5750079047, 29: 11891268401,
+    30: 24563311309, 31: 50685770167, 32: 104484802057, 33: 215187847711, 34: 442795487221,
+    35: 910399916939, 36: 1870358526653, 37: 3839726846311, 38: 7877263558621,
+    39: 16149760533341, 40: 33089240375501,
 }
 #: Word sizes an answer (a count) can overflow (common practice: int16/uint16, int32/uint32,
 #: the 53-bit double mantissa, int64).
