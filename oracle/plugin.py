@@ -17,7 +17,9 @@ or, in ``pyproject.toml``::
     ntoracle_profile = "ci"
 
 The command line beats the ini file, which beats the default (profile
-``quick``, a random seed printed in the report header).  User suite files
+``quick``, a random seed printed in the report header).  A target may carry its own
+settings, ``prime_pi=mylib.count:prime_pi max=10**12 timeout=2 primes_range=half-open``
+(the keys of a suite file; precedence in :mod:`oracle.pytest_support._settings`).  User suite files
 named ``*.ntoracle.yaml`` are collected wherever pytest looks for tests
 (format: :mod:`oracle.pytest_support._suites`).  Fixtures: ``ntoracle`` (the
 oracle facade), ``ntoracle_bounds``, ``ntoracle_seed``, ``ntoracle_points``
@@ -45,8 +47,11 @@ import pytest
 #: User suite files are the files whose names end so (``pi.ntoracle.yaml``).
 SUITE_SUFFIX = ".ntoracle.yaml"
 
-_HELP_TARGET = "ROLE=package.module:function: a Python target to check (repeatable)"
-_HELP_EXEC = "ROLE=CMD ARGS: an executable speaking the line protocol (repeatable)"
+_HELP_TARGET = ("ROLE=package.module:function [KEY=VALUE ...]: a Python target to check "
+                "(repeatable); settings: profile, max, timeout, primes_range, factor_shape, "
+                "invalid_input (quote the whole value when it has settings)")
+_HELP_EXEC = ("ROLE=CMD ARGS [KEY=VALUE ...]: an executable speaking the line protocol (repeatable); "
+              "the trailing KEY=VALUE words with a setting's name are settings")
 _HELP_PROFILE = "profile of the checks: quick, ci, deep or exhaustive (default quick)"
 _HELP_SEED = "seed of the sampled points (default: drawn at random and printed in the header)"
 _HELP_REPORT = "write the records of every check item and a summary.json into DIR"
@@ -55,7 +60,8 @@ _HELP_BUNDLED = ("whether the bundled suites run: 'auto' (default) runs them unl
                  "folders are named on the command line, 'yes' always, 'no' never")
 _HELP_IN_PROCESS = ("call Python targets in the pytest process instead of an isolated worker: "
                     "faster, but the target can then change the verdict; only for code you trust")
-_HELP_TARGETS_INI = "targets to check, one 'ROLE = package.module:function' a line"
+_HELP_TARGETS_INI = ("targets to check, one 'ROLE = package.module:function [KEY=VALUE ...]' a line "
+                     "(settings as for --ntoracle-target)")
 
 
 def pytest_addoption(parser):
@@ -158,7 +164,7 @@ def pytest_report_header(config):
     settings = config.stash.get(SETTINGS, None)
     if settings is None or not settings.active:
         return None
-    targets = ", ".join(f"{t.role}={t.spec}" for t in settings.targets)
+    targets = ", ".join(target.written() for target in settings.targets)
     return [f"ntoracle: seed {settings.seed} ({settings.seed_source}), profile {settings.profile}",
             f"ntoracle: targets {targets}"]
 

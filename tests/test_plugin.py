@@ -477,3 +477,165 @@ def test_bundled_suites_follow_pytest_s_own_selection(project):
     assert everything.parseoutcomes()["passed"] > 10          # nothing named: the bundled suites too
     refused = project.runpytest(*PLUGIN, *target, "--ntoracle-bundled", "no")
     refused.assert_outcomes(passed=1)
+
+
+# -- per-target settings (issue 12, item 1) ---------------------------------------- #
+
+# Correct (sympy) up to 1000 and wrong above: every odd number above 1000 is called prime.
+WRONG_ABOVE_1000 = '''
+import sympy
+
+def is_prime(n):
+    if n <= 1000:
+        return bool(sympy.isprime(n))
+    return n % 2 == 1
+'''
+
+# The primes of [a, b) -- the half-open convention -- by sympy.
+HALF_OPEN_PRIMES = '''
+import sympy
+
+def primes_in(a, b):
+    return list(sympy.primerange(a, b))
+'''
+
+SLOW_AT_7919 = '''
+import time
+import sympy
+
+def is_prime(n):
+    if n == 7919:                     # the 1000th prime (OEIS A000040)
+        time.sleep(30)
+    return bool(sympy.isprime(n))
+'''
+
+EDGE_SUITE = '''
+    role: is_prime
+    cases:
+      - name: edge
+        values: [997, 1001, 1003]
+'''
+
+
+@pytest.fixture
+def settings_project(project):
+    project.makepyfile(wrong_above=WRONG_ABOVE_1000, half_open=HALF_OPEN_PRIMES, slow_prime=SLOW_AT_7919)
+    project.makefile(".ntoracle.yaml", edge=EDGE_SUITE)      # 1001 = 7 * 11 * 13, 1003 = 17 * 59
+    return project
+
+
+def test_a_max_on_the_command_line_keeps_a_candidate_wrong_only_above_it_green(settings_project):
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "-rs", "--ntoracle-seed", "1"]
+    unbounded = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime")
+    unbounded.assert_outcomes(passed=1, failed=2)
+    bounded = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime  max=1000")
+    bounded.assert_outcomes(passed=1, skipped=2)
+    bounded.stdout.fnmatch_lines(["ntoracle: targets is_prime=wrong_above:is_prime max=1000",
+                                  "SKIPPED*above the declared domain*skipped, not passed*"])
+
+
+def test_ini_settings_apply_and_the_command_line_beats_them_key_by_key(settings_project):
+    settings_project.makeini("[pytest]\npythonpath = .\nntoracle_targets =\n"
+                             "    is_prime = wrong_above:is_prime  max=1000  timeout=7\n")
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1"]
+    from_ini = settings_project.runpytest(*base)
+    from_ini.assert_outcomes(passed=1, skipped=2)
+    from_ini.stdout.fnmatch_lines(["ntoracle: targets is_prime=wrong_above:is_prime max=1000 timeout=7"])
+    # the same target on the command line: its max wins, the ini line's timeout stays
+    merged = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime max=1002")
+    merged.assert_outcomes(passed=1, failed=1, skipped=1)          # 1001 checked (wrong), 1003 above
+    merged.stdout.fnmatch_lines(["ntoracle: targets is_prime=wrong_above:is_prime max=1002 timeout=7"])
+
+
+def test_a_target_setting_beats_the_suite_file(settings_project):
+    settings_project.makefile(".ntoracle.yaml", edge='''
+        role: is_prime
+        max: 10**6
+        cases:
+          - name: edge
+            values: [997, 1001, 1003]
+    ''')
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1"]
+    suite_max = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime")
+    suite_max.assert_outcomes(passed=1, failed=2)
+    target_max = settings_project.runpytest(*base, "--ntoracle-target",
+                                            "is_prime=wrong_above:is_prime max=1000")
+    target_max.assert_outcomes(passed=1, skipped=2)
+
+
+def test_a_convention_setting_judges_a_half_open_listing(settings_project):
+    settings_project.makefile(".ntoracle.yaml", windows='''
+        role: primes_in
+        cases:
+          - name: windows
+            values: [[0, 101], [89, 97], [1000, 1009]]
+    ''')
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1", "windows.ntoracle.yaml"]
+    closed = settings_project.runpytest(*base, "--ntoracle-target", "primes_in=half_open:primes_in")
+    closed.assert_outcomes(failed=3)        # 101, 97 and 1009 are prime (OEIS A000040): left out
+    half_open = settings_project.runpytest(*base, "--ntoracle-target",
+                                           "primes_in=half_open:primes_in primes_range=half-open")
+    half_open.assert_outcomes(passed=3)
+
+
+def test_a_timeout_setting_bounds_each_call(settings_project):
+    settings_project.makefile(".ntoracle.yaml", slow='''
+        role: is_prime
+        cases:
+          - name: thousandth
+            values: [7919]
+    ''')
+    result = settings_project.runpytest(*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1",
+                                        "slow.ntoracle.yaml", "--ntoracle-target",
+                                        "is_prime=slow_prime:is_prime timeout=0.5")
+    result.assert_outcomes(failed=1)
+    result.stdout.fnmatch_lines(["is_prime(7919): hung*"])
+
+
+@pytest.mark.parametrize("value, problem", [
+    ("is_prime=good_prime:is_prime maxx=3",
+     "*ntoracle: --ntoracle-target='is_prime=good_prime:is_prime maxx=3': unknown setting 'maxx'; "
+     "the settings are profile, max, timeout, primes_range, factor_shape, invalid_input"),
+    ("is_prime=good_prime:is_prime max=ten", "*--ntoracle-target=*: max='ten': *cannot read 'ten'*"),
+    ("is_prime=good_prime:is_prime max=-5", "*--ntoracle-target=*: max='-5': *"),
+    ("is_prime=good_prime:is_prime timeout=0", "*--ntoracle-target=*: timeout='0': must be *> 0*"),
+    ("is_prime=good_prime:is_prime primes_range=open",
+     "*--ntoracle-target=*: primes_range='open': expected one of closed, half-open"),
+    ("is_prime=good_prime:is_prime profile=fast", "*profile='fast': expected one of quick*"),
+    ("is_prime=good_prime:is_prime max=1 max=2", "*setting 'max' given twice"),
+    ("is_prime=good_prime:is_prime 1000", "*'1000' is not KEY=VALUE*"),
+])
+def test_bad_target_settings_are_usage_errors_naming_the_key(project, value, problem):
+    result = project.runpytest(*PLUGIN, "--ntoracle-target", value)
+    assert result.ret == pytest.ExitCode.USAGE_ERROR
+    result.stderr.fnmatch_lines([problem])
+    assert "Traceback" not in result.stderr.str()
+
+
+def test_a_bad_ini_setting_names_the_ini_line(project):
+    project.makeini("[pytest]\npythonpath = .\nntoracle_targets =\n"
+                    "    is_prime = good_prime:is_prime  timeout=soon\n")
+    result = project.runpytest(*PLUGIN)
+    assert result.ret == pytest.ExitCode.USAGE_ERROR
+    result.stderr.fnmatch_lines(["*ntoracle: ini ntoracle_targets line 'is_prime = good_prime:is_prime  "
+                                 "timeout=soon': timeout='soon': expected a number of seconds"])
+
+
+def test_executable_targets_take_trailing_settings(project):
+    project.makepyfile(line_prime=EXEC_IS_PRIME)
+    target = _settings.parse_target(f"is_prime={sys.executable} line_prime.py --fast  max=10**6 timeout=3",
+                                    kind="exec", source="--ntoracle-exec")
+    assert target.spec == f"{sys.executable} line_prime.py --fast"
+    assert (target.maximum, target.timeout) == (10**6, 3.0)
+    assert target.written() == f"is_prime={sys.executable} line_prime.py --fast max=1000000 timeout=3"
+
+
+def test_convention_names_agree_with_the_library():
+    import dataclasses
+
+    from oracle.roles import _role
+
+    assert set(_settings.CONVENTION_VALUES) == {f.name for f in dataclasses.fields(roles.Conventions)}
+    assert _settings.CONVENTION_VALUES["primes_range"] == _role.RANGE_CONVENTIONS
+    assert _settings.CONVENTION_VALUES["factor_shape"] == _role.FACTOR_SHAPES
+    assert _settings.CONVENTION_VALUES["invalid_input"] == _role.INVALID_INPUT_POLICIES

@@ -26,7 +26,7 @@ from importlib import resources
 
 import pytest
 
-from ._settings import POOL, SETTINGS, Settings, TargetSetting
+from ._settings import POOL, SETTINGS, Effective, Settings, TargetSetting, effective
 from ._suites import Suite, SuiteError, groups_of, load_suite, small_exhaustive
 
 __all__ = ["SETTINGS", "POOL", "TargetPool", "BundledSuites", "SuiteFile", "CheckItem",
@@ -89,12 +89,13 @@ class _TargetCollector(pytest.Collector):
     def __init__(self, *, suite: Suite, target: TargetSetting, **kwargs):
         super().__init__(**kwargs)
         self.suite, self.target = suite, target
+        self.effective: Effective = effective(suite, target, self.config.stash[SETTINGS])
 
     def collect(self):
         from .. import sampling
 
         settings = self.config.stash[SETTINGS]
-        profile = sampling.profile(self.suite.profile or settings.profile)
+        profile = sampling.profile(self.effective.profile)
         sampled = _sampled(self.config, self.suite.role, profile, settings.seed)
         for case in self.suite.cases:
             for group in groups_of(self.suite, case, profile=profile, seed=settings.seed,
@@ -217,9 +218,9 @@ class CheckItem(pytest.Item):
         from ._judging import judge_invalid_inputs, judge_points
 
         settings = self.config.stash[SETTINGS]
-        suite, setting = self.suite, self.target_setting
-        profile = sampling.profile(suite.profile or settings.profile)
-        timeout = suite.timeout or profile.timeout
+        suite, setting, chosen = self.suite, self.target_setting, self.parent.effective
+        profile = sampling.profile(chosen.profile)
+        timeout = chosen.timeout or profile.timeout
         try:
             pool = self.config.stash.setdefault(POOL, TargetPool(in_process=settings.in_process))
             target = pool.get(setting.kind, setting.spec, suite.role, timeout)
@@ -227,12 +228,12 @@ class CheckItem(pytest.Item):
             pytest.fail(f"ntoracle: {setting.source}: {error}", pytrace=False)
         points = self.group.arguments(roles.get(suite.role).arity)
         common = dict(role=suite.role, profile=profile.name, seed=settings.seed, points=points,
-                      timeout=timeout, conventions=suite.conventions, stream=self._stream_path())
+                      timeout=timeout, conventions=chosen.conventions, stream=self._stream_path())
         try:
             if self.group.kind == "invalid":
                 summary = judge_invalid_inputs(target, **common)
             else:
-                summary = judge_points(target, maximum=suite.maximum, **common)
+                summary = judge_points(target, maximum=chosen.maximum, **common)
         except OSError as error:                          # an executable that cannot be started
             pytest.fail(f"ntoracle: {setting.source}: cannot run {setting.spec!r}: {error}", pytrace=False)
         self.user_properties += [("ntoracle_seed", settings.seed), ("ntoracle_checks", summary["checks"]),
@@ -261,7 +262,7 @@ class CheckItem(pytest.Item):
             from ._messages import failure_message
 
             settings = self.config.stash[SETTINGS]
-            profile = self.suite.profile or settings.profile
+            profile = self.parent.effective.profile
             return failure_message(excinfo.value.summary, role=self.suite.role,
                                    target=self.target_setting.spec, case=self.group.case,
                                    seed=settings.seed, profile=profile,
