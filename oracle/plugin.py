@@ -42,6 +42,8 @@ vetted library.
 
 from __future__ import annotations
 
+import shlex
+
 import pytest
 
 #: User suite files are the files whose names end so (``pi.ntoracle.yaml``).
@@ -54,7 +56,8 @@ _HELP_EXEC = ("ROLE=CMD ARGS [KEY=VALUE ...]: an executable speaking the line pr
               "the trailing KEY=VALUE words with a setting's name are settings")
 _HELP_PROFILE = "profile of the checks: quick, ci, deep or exhaustive (default quick)"
 _HELP_SEED = "seed of the sampled points (default: drawn at random and printed in the header)"
-_HELP_REPORT = "write the records of every check item and a summary.json into DIR"
+_HELP_REPORT = ("write report.html (the HTML report of 'ntoracle audit --report'), summary.json and "
+                "the records of every check item into DIR")
 _HELP_HYPOTHESIS = "load this hypothesis settings profile of oracle.strategies (ntoracle-ci, ntoracle-dev)"
 _HELP_BUNDLED = ("whether the bundled suites run: 'auto' (default) runs them unless files or "
                  "folders are named on the command line, 'yes' always, 'no' never")
@@ -101,10 +104,15 @@ def pytest_configure(config):
         from .pytest_support._nodes import TargetPool
 
         config.stash[_settings.POOL] = TargetPool(in_process=settings.in_process)
-        if settings.report_dir and not hasattr(config, "workerinput"):
-            from .pytest_support._nodes import ReportWriter
+    if not hasattr(config, "workerinput"):         # the only process, or the xdist controller
+        from .pytest_support._session import ReportWriter, SessionTally
 
-            config.pluginmanager.register(ReportWriter(settings), "ntoracle-report")
+        tally = SessionTally()
+        config.stash[_settings.TALLY] = tally
+        config.pluginmanager.register(tally, "ntoracle-tally")
+        if settings.report_dir:
+            command = shlex.join(["pytest", *config.invocation_params.args])
+            config.pluginmanager.register(ReportWriter(settings, tally, command), "ntoracle-report")
     _hypothesis_profiles(config, settings)
 
 
@@ -223,14 +231,22 @@ def pytest_sessionfinish(session):
 
 
 def pytest_terminal_summary(terminalreporter, config):
-    from .pytest_support._settings import SETTINGS
+    """Per role and target, the verdict and the reach (:mod:`oracle.pytest_support._session`),
+    then the seed and the cautions."""
+    from .pytest_support._settings import SETTINGS, TALLY
 
     settings = config.stash.get(SETTINGS, None)
-    if settings is None or not settings.active:
+    tally = config.stash.get(TALLY, None)
+    if settings is None or not (settings.active or (tally is not None and tally.roles)):
         return
     from .report import CAUTIONS
 
     terminalreporter.section("ntoracle")
+    for role in (sorted(tally.roles.values(), key=lambda r: (r.role, r.target)) if tally else ()):
+        for line in role.lines():
+            terminalreporter.write_line(line)
+    if settings.report_dir:
+        terminalreporter.write_line(f"report: {settings.report_dir}/report.html and summary.json")
     terminalreporter.write_line(f"seed {settings.seed}, profile {settings.profile}: repeat with "
                                 f"--ntoracle-seed {settings.seed} --ntoracle-profile {settings.profile}")
     for caution in CAUTIONS:

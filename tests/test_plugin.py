@@ -639,3 +639,94 @@ def test_convention_names_agree_with_the_library():
     assert _settings.CONVENTION_VALUES["primes_range"] == _role.RANGE_CONVENTIONS
     assert _settings.CONVENTION_VALUES["factor_shape"] == _role.FACTOR_SHAPES
     assert _settings.CONVENTION_VALUES["invalid_input"] == _role.INVALID_INPUT_POLICIES
+
+
+# -- the HTML report and the session summary (issue 12, item 4) --------------------- #
+
+GOOD_PRIME_PI = '''
+import sympy
+
+def prime_pi(n):
+    return int(sympy.primepi(n))
+'''
+
+
+@pytest.fixture
+def two_role_project(project):
+    project.makepyfile(good_pi=GOOD_PRIME_PI)
+    project.makefile(".ntoracle.yaml", korselt='''
+        role: is_prime
+        target: fermat_prime:is_prime
+        cases:
+          - name: korselt
+            values: [29341, 7919]
+    ''', counts='''
+        role: prime_pi
+        target: good_pi:prime_pi
+        cases:
+          - name: powers
+            values: [10**3, 10**6]
+    ''')
+    return project
+
+
+def test_report_option_writes_the_audit_html_report_with_every_role(two_role_project):
+    result = two_role_project.runpytest(*PLUGIN, "--ntoracle-seed", "4", "--ntoracle-report", "out")
+    result.assert_outcomes(passed=3, failed=1)
+    page = (two_role_project.path / "out" / "report.html").read_text(encoding="utf-8")
+    assert page.startswith("<!DOCTYPE html>")
+    assert '<h2>is_prime: <span class="failed">failed</span></h2>' in page
+    assert '<h2>prime_pi: <span class="passed">passed</span></h2>' in page
+    assert "29341" in page                   # the Carmichael number 13 * 37 * 61 (OEIS A002997)
+    assert "ntoracle audit fermat_prime:is_prime --role is_prime" in page   # the CLI's repeat line
+    summary = json.loads((two_role_project.path / "out" / "summary.json").read_text())
+    verdicts = {entry["role"]: entry["verdict"] for entry in summary["roles"]}
+    assert verdicts == {"is_prime": "failed", "prime_pi": "passed"}
+
+
+def test_the_html_report_is_the_cli_renderer_s(two_role_project, monkeypatch):
+    """The page is oracle.report.render_html of the engine's summary of the same records."""
+    two_role_project.runpytest(*PLUGIN, "--ntoracle-seed", "4", "--ntoracle-report", "out",
+                               "counts.ntoracle.yaml")
+    from oracle import engine
+    from oracle.report._html import render_html
+
+    records = []
+    for path in sorted((two_role_project.path / "out" / "records").glob("*.jsonl")):
+        records += [r for r in engine.read_records(path) if r["type"] != "end"]
+    records = [r for i, r in enumerate(records) if r["type"] != "start" or i == 0]
+    for record in records:                     # the plugin files each check under its case
+        if record["type"] == "check":
+            record["family"] = "powers"
+    page = (two_role_project.path / "out" / "report.html").read_text(encoding="utf-8")
+    summary = engine.summarise(records + [{"type": "end", "elapsed": 0.0}])
+    assert summary["checks"] == 2 and summary["verdict"] == "passed"
+    expected = render_html([(summary, records)], command="x", title="ntoracle report of the pytest session")
+
+    def without_command_and_time(text: str) -> str:      # the two parts that differ between runs
+        text = text.split('id="cautions"', 1)[1]
+        before, after = text.split("<dt>time</dt>", 1)
+        return before + after.split("</dd>", 1)[1]
+
+    assert "<h3>Reach</h3>" in page and "<figure>" in page
+    assert without_command_and_time(page) == without_command_and_time(expected)
+
+
+def test_session_summary_lists_each_role_s_verdict_and_reach(two_role_project):
+    result = two_role_project.runpytest(*PLUGIN, "--ntoracle-seed", "4")
+    result.stdout.fnmatch_lines([
+        "*= ntoracle =*",
+        "is_prime (fermat_prime:is_prime): failed -- 2 item(s) (1 failed, 1 passed), 2 checks, 1 finding(s)",
+        "    reach: checked up to 29341 (korselt); 1 case(s) with checked inputs",
+        "prime_pi (good_pi:prime_pi): passed -- 2 item(s) (2 passed), 2 checks, 0 finding(s)",
+        "    reach: checked up to 10^6 (powers); 1 case(s) with checked inputs",
+    ], consecutive=False)
+
+
+def test_session_summary_counts_points_not_run(settings_project):
+    result = settings_project.runpytest(*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1",
+                                        "--ntoracle-target", "is_prime=wrong_above:is_prime max=1000")
+    result.stdout.fnmatch_lines([
+        "is_prime (wrong_above:is_prime): passed -- 3 item(s) (1 passed, 2 skipped), 1 checks, 0 finding(s)",
+        "    reach: checked up to 997 (edge)*",
+        "    not run: 2 point(s), above the declared domain* (not counted as passed)"])

@@ -17,23 +17,20 @@ targets, so pytest-xdist may run them in any order on any worker.
 
 from __future__ import annotations
 
-import hashlib
-import json
-import os
 import re
 import warnings
 from importlib import resources
 
 import pytest
 
-from ._settings import POOL, SETTINGS, Effective, Settings, TargetSetting, effective
+from ._settings import POOL, SETTINGS, Effective, TargetSetting, effective
 from ._suites import Suite, SuiteError, groups_of, load_suite, small_exhaustive
 
 __all__ = ["SETTINGS", "POOL", "TargetPool", "BundledSuites", "SuiteFile", "CheckItem",
-           "SuiteErrorItem", "ReportWriter", "bundled_suite_paths"]
+           "SuiteErrorItem", "bundled_suite_paths"]
 
 _SAMPLES = pytest.StashKey[dict]()
-#: Characters kept in names made from a target's spec and in file names made from node ids.
+#: Characters kept in names made from a target's spec.
 _UNSAFE = re.compile(r"[^A-Za-z0-9_.\-]+")
 
 
@@ -219,6 +216,8 @@ class CheckItem(pytest.Item):
 
         settings = self.config.stash[SETTINGS]
         suite, setting, chosen = self.suite, self.target_setting, self.parent.effective
+        self.user_properties += [("ntoracle_role", suite.role), ("ntoracle_target", setting.spec),
+                                 ("ntoracle_case", self.group.case)]
         profile = sampling.profile(chosen.profile)
         timeout = chosen.timeout or profile.timeout
         try:
@@ -236,8 +235,9 @@ class CheckItem(pytest.Item):
                 summary = judge_points(target, maximum=chosen.maximum, **common)
         except OSError as error:                          # an executable that cannot be started
             pytest.fail(f"ntoracle: {setting.source}: cannot run {setting.spec!r}: {error}", pytrace=False)
-        self.user_properties += [("ntoracle_seed", settings.seed), ("ntoracle_checks", summary["checks"]),
-                                 ("ntoracle_findings", len(summary["failures"]))]
+        from ._session import item_properties
+
+        self.user_properties += [("ntoracle_seed", settings.seed), *item_properties(summary, self.group.case)]
         if summary["failures"]:
             raise CheckFailed(summary)
         reasons = "; ".join(f"{count} point(s): {reason}" for reason, count in summary["skipped"].items())
@@ -250,12 +250,10 @@ class CheckItem(pytest.Item):
             warnings.warn(PointsNotRun(f"{self.nodeid}: not run, so not passed: {reasons}"))
 
     def _stream_path(self) -> str | None:
+        from ._session import stream_path
+
         directory = self.config.stash[SETTINGS].report_dir
-        if not directory:
-            return None
-        digest = hashlib.sha1(self.nodeid.encode()).hexdigest()[:10]
-        name = _UNSAFE.sub("_", self.nodeid.replace("::", "--"))[-160:]
-        return os.path.join(directory, "records", f"{name}-{digest}.jsonl")
+        return stream_path(directory, self.nodeid) if directory else None
 
     def repr_failure(self, excinfo, style=None):
         if isinstance(excinfo.value, CheckFailed):
@@ -276,27 +274,3 @@ class CheckItem(pytest.Item):
 
     def reportinfo(self):
         return self.path, self.group.line - 1, f"{self.suite.role}: {self.name} ({self.target_setting.spec})"
-
-
-class ReportWriter:
-    """Registered with ``--ntoracle-report DIR`` (on the pytest-xdist controller, or the only
-    process): collects the outcome of every item and writes ``DIR/summary.json`` at the end;
-    the items themselves write their records to ``DIR/records/<item>.jsonl``."""
-
-    def __init__(self, settings: Settings):
-        self.settings = settings
-        self.outcomes: dict[str, str] = {}
-
-    def pytest_runtest_logreport(self, report):
-        if report.when == "call" or report.outcome != "passed":
-            self.outcomes[report.nodeid] = report.outcome
-
-    def pytest_sessionfinish(self, session):
-        directory = self.settings.report_dir
-        os.makedirs(directory, exist_ok=True)
-        data = {"seed": self.settings.seed, "profile": self.settings.profile,
-                "targets": [{"role": t.role, "kind": t.kind, "spec": t.spec}
-                            for t in self.settings.targets],
-                "items": self.outcomes}
-        with open(os.path.join(directory, "summary.json"), "w", encoding="utf-8") as handle:
-            json.dump(data, handle, indent=1)

@@ -40,7 +40,8 @@ from .._integers import parse_integer, require_int
 from .._options import positive_seconds
 
 __all__ = ["TargetSetting", "Settings", "Effective", "resolve", "effective", "DEFAULT_PROFILE",
-           "PROFILE_NAMES", "ROLE_NAMES", "CONVENTION_VALUES", "SETTING_KEYS", "SETTINGS", "POOL"]
+           "PROFILE_NAMES", "ROLE_NAMES", "CONVENTION_VALUES", "SETTING_KEYS", "SETTINGS", "POOL",
+           "TALLY"]
 
 DEFAULT_PROFILE = "quick"
 #: The profiles of :mod:`oracle.sampling` (kept as names here so that reading settings imports
@@ -64,6 +65,7 @@ PYTHON_SPEC = re.compile(r"^[A-Za-z_][\w.]*:[A-Za-z_][\w.]*$")
 #: Where the session's settings and its pool of targets are kept (``config.stash``).
 SETTINGS = pytest.StashKey["Settings"]()
 POOL = pytest.StashKey[object]()
+TALLY = pytest.StashKey[object]()
 
 
 @dataclass(frozen=True)
