@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import importlib.metadata
 import json
+import shlex
 import sys
 import tomllib
 import xml.etree.ElementTree as ElementTree
@@ -98,7 +99,8 @@ def test_defective_target_fails_with_input_got_expected_provenance_and_seed(proj
         "    expected:   false",
         "    provenance: *",
         "smallest failing input: [[]46657[]]*",
-        "reproduce: pytest --ntoracle-seed 5 --ntoracle-profile quick -k 'carmichael[*",
+        "reproduce: pytest --ntoracle-item 'ntoracle::is_prime::carmichael[[]*]' "
+        "--ntoracle-target is_prime=fermat_prime:is_prime --ntoracle-seed 5 --ntoracle-profile quick",
     ])
 
 
@@ -730,3 +732,147 @@ def test_session_summary_counts_points_not_run(settings_project):
         "is_prime (wrong_above:is_prime): passed -- 3 item(s) (1 passed, 2 skipped), 1 checks, 0 finding(s)",
         "    reach: checked up to 997 (edge)*",
         "    not run: 2 point(s), above the declared domain* (not counted as passed)"])
+
+
+# -- unique item ids and reproduce lines that reproduce (issue 12, item 3) ----------- #
+
+def _reproduce_lines(result) -> list[str]:
+    return [line.removeprefix("reproduce: ") for line in result.outlines if line.startswith("reproduce: ")]
+
+
+def _failure_text(result) -> list[str]:
+    """The lines of the failure messages (input, got, expected, provenance), without timings."""
+    return [line for line in result.outlines
+            if (line.startswith("ntoracle: ") and " failed " in line) or line.startswith(("    input:", "    got:", "    expected:", "    provenance:",
+                                "is_prime(", "prime_pi(", "primes_in(", "reproduce: "))]
+
+
+def _paste(pytester, line: str):
+    words = shlex.split(line)
+    assert words[0] == "pytest"
+    return pytester.runpytest(*PLUGIN, *words[1:])
+
+
+def test_a_pasted_reproduce_line_reruns_exactly_the_failed_bundled_item(project):
+    project.makepyfile(test_unrelated="def test_elsewhere():\n    assert True\n")
+    first = project.runpytest(*PLUGIN, "--ntoracle-target", "is_prime=fermat_prime:is_prime max=10**12",
+                              "--ntoracle-target", "is_prime=good_prime:is_prime",
+                              "--ntoracle-seed", "5", "-k", "carmichael or pseudoprimes")
+    lines = _reproduce_lines(first)
+    assert len(lines) == first.parseoutcomes()["failed"] >= 2
+    for line in lines:
+        assert "max=1000000000000" in line and "good_prime:is_prime" in line   # both targets, settings
+        again = _paste(project, line)
+        again.assert_outcomes(failed=1, deselected=again.parseoutcomes()["deselected"])
+        assert "test_elsewhere" not in again.stdout.str()
+        nodeid = shlex.split(line)[2]
+        assert f"FAILED {nodeid}" in again.stdout.str()
+        failed_here = [text for text in _failure_text(first) if nodeid.split("::")[-1] in text]
+        assert set(failed_here) <= set(_failure_text(again))
+
+
+def test_a_reproduce_line_carries_the_ini_targets_and_settings(settings_project):
+    settings_project.makeini("[pytest]\npythonpath = .\nntoracle_targets =\n"
+                             "    is_prime = wrong_above:is_prime  max=1002\nntoracle_seed = 8\n")
+    first = settings_project.runpytest(*PLUGIN, "--ntoracle-bundled", "no")
+    first.assert_outcomes(passed=1, failed=1, skipped=1)
+    [line] = _reproduce_lines(first)
+    assert line == ("pytest --ntoracle-item 'edge.ntoracle.yaml::is_prime::edge[1001]' --ntoracle-target "
+                    "'is_prime=wrong_above:is_prime max=1002' --ntoracle-seed 8 --ntoracle-profile quick")
+    settings_project.makeini("[pytest]\npythonpath = .\n")        # the line alone, without the ini
+    again = _paste(settings_project, line)
+    again.assert_outcomes(failed=1, deselected=2)
+    assert _failure_text(again) == _failure_text(first)
+
+
+def test_roles_sharing_a_case_name_and_label_are_told_apart(project):
+    project.makepyfile(good_pi=GOOD_PRIME_PI)
+    project.makefile(".ntoracle.yaml", both='''
+        role: is_prime
+        target: fermat_prime:is_prime
+        cases:
+          - name: random
+            random: {count: 3, low: 29341, high: 29341}
+          - name: small
+            values: [29341, 29341, 97]
+    ''', count='''
+        role: prime_pi
+        target: good_pi:prime_pi
+        cases:
+          - name: small
+            values: [29341, 97]
+    ''')
+    collected = project.runpytest(*PLUGIN, "--collect-only", "-q")
+    ids = [line for line in collected.outlines if "::" in line]
+    assert len(ids) == len(set(ids)) == 5, ids        # 29341 given twice runs once
+    first = project.runpytest(*PLUGIN, "--ntoracle-seed", "3")
+    first.assert_outcomes(failed=2, passed=3)          # 29341 = 13 * 37 * 61 (OEIS A002997)
+    for line in _reproduce_lines(first):
+        assert "--ntoracle-target" not in line         # the suite names its own target
+        again = _paste(project, line)
+        again.assert_outcomes(failed=1, deselected=2)     # only both.ntoracle.yaml is collected
+        assert "prime_pi" not in "".join(l for l in again.outlines if l.startswith(("FAILED", "PASSED")))
+
+
+# Wrong at every composite n = 1 (mod 50): called prime.
+ONE_MOD_50 = '''
+import sympy
+
+def is_prime(n):
+    return n % 50 == 1 or bool(sympy.isprime(n))
+'''
+
+
+def test_random_points_reproduce_from_the_printed_seed(project):
+    project.makepyfile(one_mod_50=ONE_MOD_50)
+    project.makefile(".ntoracle.yaml", draws='''
+        role: is_prime
+        target: one_mod_50:is_prime
+        cases:
+          - name: draws
+            segment: 1
+            random: {count: 400, low: 2, high: 10**6}
+    ''')
+    first = project.runpytest(*PLUGIN)                # a seed drawn at random
+    lines = _reproduce_lines(first)
+    assert lines and len(lines) == first.parseoutcomes()["failed"]
+    again = _paste(project, lines[0])
+    again.assert_outcomes(failed=1, deselected=again.parseoutcomes()["deselected"])
+    nodeid = shlex.split(lines[0])[2]
+    assert f"FAILED {nodeid}" in again.stdout.str()
+    assert "--ntoracle-seed" in lines[0]
+
+
+def test_hand_written_checks_print_a_line_that_reruns_the_test(project):
+    project.makepyfile(test_hand='''
+        from fermat_prime import is_prime as fermat
+
+        def test_passes(ntoracle_check):
+            ntoracle_check("is_prime", fermat, [2, 3, 97])
+
+        def test_check_fails(ntoracle_check):
+            ntoracle_check("is_prime", fermat, [29341])
+    ''')
+    first = project.runpytest(*PLUGIN, "--ntoracle-seed", "9")
+    first.assert_outcomes(passed=1, failed=1)
+    [line] = _reproduce_lines(first)
+    assert line == "pytest --ntoracle-item test_hand.py::test_check_fails --ntoracle-seed 9 --ntoracle-profile quick"
+    again = _paste(project, line)
+    again.assert_outcomes(failed=1, deselected=1)
+    assert _failure_text(again) == _failure_text(first)
+
+
+def test_an_item_id_that_names_no_item_is_a_usage_error(project):
+    result = project.runpytest(*PLUGIN, "--ntoracle-target", "is_prime=good_prime:is_prime",
+                               "--ntoracle-item", "ntoracle::is_prime::carmichael[1..2]")
+    assert result.ret == pytest.ExitCode.USAGE_ERROR
+    result.stderr.fnmatch_lines(["*--ntoracle-item 'ntoracle::is_prime::carmichael[[]1..2[]]': no such item*"])
+
+
+def test_bundled_item_ids_are_unique_for_every_role(project):
+    project.makepyfile(good_pi=GOOD_PRIME_PI)
+    arguments = [f"--ntoracle-target={role}=good_pi:prime_pi" for role in _settings.ROLE_NAMES]
+    collected = project.runpytest(*PLUGIN, *arguments, "--collect-only", "-q", "--ntoracle-seed", "2")
+    ids = [line for line in collected.outlines if line.startswith("ntoracle::")]
+    assert len(ids) > 50 and len(ids) == len(set(ids))
+    assert {line.split("::")[1] for line in ids} == set(_settings.ROLE_NAMES)

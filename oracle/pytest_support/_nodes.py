@@ -94,20 +94,28 @@ class _TargetCollector(pytest.Collector):
         settings = self.config.stash[SETTINGS]
         profile = sampling.profile(self.effective.profile)
         sampled = _sampled(self.config, self.suite.role, profile, settings.seed)
+        names: set[str] = set()
         for case in self.suite.cases:
             for group in groups_of(self.suite, case, profile=profile, seed=settings.seed,
                                    sampled=sampled):
-                yield CheckItem.from_parent(self, name=f"{group.case}[{group.label}]", group=group,
-                                            nodeid=_item_id(self, group))
+                name = _unique(f"{group.case}[{group.label}]", names)
+                yield CheckItem.from_parent(self, name=name, group=group, nodeid=f"{self.nodeid}::{name}")
 
     def reportinfo(self):
         return self.suite.path, self.suite.line - 1, f"{self.suite.name} ({self.target.spec})"
 
 
-def _item_id(parent, group) -> str:
-    """The item's node id, written out so that pytest reads the group's label as the item's
-    parameters (as for its own parametrised tests) and ``--lf`` recognises the ids it stored."""
-    return f"{parent.nodeid}::{group.case}[{group.label}]"
+def _unique(name: str, names: set[str]) -> str:
+    """``case[label]``, or ``case[label#2]`` for the second group with that label, so that
+    every item of a collector has its own id.  The node id is written out (parent ``::``
+    name) so that pytest reads the label as the item's parameters, as for its own
+    parametrised tests, and ``--lf`` and ``--ntoracle-item`` recognise the ids."""
+    chosen, count = name, 1
+    while chosen in names:
+        count += 1
+        chosen = f"{name[:-1]}#{count}]"
+    names.add(chosen)
+    return chosen
 
 
 def _target_children(parent, suite: Suite, targets: list[TargetSetting]):
@@ -263,14 +271,16 @@ class CheckItem(pytest.Item):
             profile = self.parent.effective.profile
             return failure_message(excinfo.value.summary, role=self.suite.role,
                                    target=self.target_setting.spec, case=self.group.case,
-                                   seed=settings.seed, profile=profile,
-                                   reproduce=f"pytest --ntoracle-seed {settings.seed} "
-                                             f"--ntoracle-profile {profile} -k '{self._keyword()}'")
+                                   seed=settings.seed, profile=profile, reproduce=self.reproduce_line())
         return super().repr_failure(excinfo, style)
 
-    def _keyword(self) -> str:
-        """A ``-k`` expression selecting this item (``-k`` words cannot hold a comma)."""
-        return self.name if "," not in self.name else f"{self.suite.role} and {self.group.case}"
+    def reproduce_line(self) -> str:
+        """The command that re-runs exactly this item: its id, the targets of its role as
+        configured (a suite that names its own target needs none), the seed and profile."""
+        from ._reproduce import reproduce_line
+
+        own = isinstance(self.parent.parent, SuiteFile) and self.suite.target is not None
+        return reproduce_line(self.config, self.nodeid, role=None if own else self.suite.role)
 
     def reportinfo(self):
         return self.path, self.group.line - 1, f"{self.suite.role}: {self.name} ({self.target_setting.spec})"
