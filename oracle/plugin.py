@@ -48,8 +48,6 @@ vetted library.
 
 from __future__ import annotations
 
-import shlex
-
 import pytest
 
 #: User suite files are the files whose names end so (``pi.ntoracle.yaml``).
@@ -116,15 +114,10 @@ def pytest_configure(config):
         from .pytest_support._nodes import TargetPool
 
         config.stash[_settings.POOL] = TargetPool(in_process=settings.in_process)
-    if not hasattr(config, "workerinput"):         # the only process, or the xdist controller
-        from .pytest_support._session import ReportWriter, SessionTally
+    if settings.active or settings.report_dir:      # else registered by the first suite file
+        from .pytest_support._session import register_tally
 
-        tally = SessionTally()
-        config.stash[_settings.TALLY] = tally
-        config.pluginmanager.register(tally, "ntoracle-tally")
-        if settings.report_dir:
-            command = shlex.join(["pytest", *config.invocation_params.args])
-            config.pluginmanager.register(ReportWriter(settings, tally, command), "ntoracle-report")
+        register_tally(config)
     _hypothesis_profiles(config, settings)
 
 

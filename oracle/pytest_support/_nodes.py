@@ -148,6 +148,9 @@ class SuiteFile(pytest.File):
     """A user suite file (``*.ntoracle.yaml``)."""
 
     def collect(self):
+        from ._session import register_tally
+
+        register_tally(self.config)
         try:
             suite = load_suite(self.path)
         except SuiteError as error:

@@ -19,13 +19,12 @@ records that the items wrote to ``DIR/records/``.
 
 from __future__ import annotations
 
-import hashlib
-import json
 import os
 import re
 from dataclasses import dataclass, field
 
-__all__ = ["RoleTally", "SessionTally", "ReportWriter", "stream_path", "item_properties"]
+__all__ = ["RoleTally", "SessionTally", "ReportWriter", "register_tally", "stream_path",
+           "item_properties"]
 
 #: Characters kept in file names made from node ids.
 _UNSAFE = re.compile(r"[^A-Za-z0-9_.\-]+")
@@ -33,6 +32,8 @@ _UNSAFE = re.compile(r"[^A-Za-z0-9_.\-]+")
 
 def stream_path(directory: str, nodeid: str) -> str:
     """Where the item ``nodeid`` writes its records under ``--ntoracle-report directory``."""
+    import hashlib          # here, not at the top: this module is imported in every session
+
     digest = hashlib.sha1(nodeid.encode()).hexdigest()[:10]
     name = _UNSAFE.sub("_", nodeid.replace("::", "--"))[-160:]
     return os.path.join(directory, "records", f"{name}-{digest}.jsonl")
@@ -126,6 +127,26 @@ class SessionTally:
         tally.add(report.nodeid, outcome, properties)
 
 
+def register_tally(config) -> None:
+    """Register the :class:`SessionTally` (and, with ``--ntoracle-report``, the
+    :class:`ReportWriter`) once, on the only process or the pytest-xdist controller: at
+    configuration when targets are configured, else when the first suite file is collected
+    (a session without either does not pay for this module)."""
+    import shlex
+
+    from ._settings import SETTINGS, TALLY
+
+    if hasattr(config, "workerinput") or config.stash.get(TALLY, None) is not None:
+        return
+    tally = SessionTally()
+    config.stash[TALLY] = tally
+    config.pluginmanager.register(tally, "ntoracle-tally")
+    settings = config.stash[SETTINGS]
+    if settings.report_dir:
+        command = shlex.join(["pytest", *config.invocation_params.args])
+        config.pluginmanager.register(ReportWriter(settings, tally, command), "ntoracle-report")
+
+
 class ReportWriter:
     """Registered with ``--ntoracle-report DIR``: at the end of the session writes
     ``DIR/summary.json`` (seed, profile, targets, the outcome of every item, the verdict of
@@ -135,6 +156,8 @@ class ReportWriter:
         self.settings, self.tally, self.command = settings, tally, command
 
     def pytest_sessionfinish(self, session):
+        import json
+
         directory = self.settings.report_dir
         os.makedirs(directory, exist_ok=True)
         data = {"seed": self.settings.seed, "profile": self.settings.profile,

@@ -37,7 +37,6 @@ import pytest
 
 from .._errors import InvalidInputError
 from .._integers import parse_integer, require_int
-from .._options import positive_seconds
 
 __all__ = ["TargetSetting", "Settings", "Effective", "resolve", "effective", "DEFAULT_PROFILE",
            "PROFILE_NAMES", "ROLE_NAMES", "CONVENTION_VALUES", "SETTING_KEYS", "SETTINGS", "POOL",
@@ -183,6 +182,8 @@ def parse_setting_words(words: list[str], *, where: str) -> dict:
             except InvalidInputError as error:
                 raise InvalidInputError(f"{where}: max={value!r}: {error}") from None
         elif key == "timeout":
+            from .._options import positive_seconds      # here: this module is read in every session
+
             try:
                 values["timeout"] = positive_seconds(value, "timeout")
             except InvalidInputError as error:
