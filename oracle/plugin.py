@@ -17,7 +17,9 @@ or, in ``pyproject.toml``::
     ntoracle_profile = "ci"
 
 The command line beats the ini file, which beats the default (profile
-``quick``, a random seed printed in the report header).  User suite files
+``quick``, a random seed printed in the report header).  A target may carry its own
+settings, ``prime_pi=mylib.count:prime_pi max=10**12 timeout=2 primes_range=half-open``
+(the keys of a suite file; precedence in :mod:`oracle.pytest_support._settings`).  User suite files
 named ``*.ntoracle.yaml`` are collected wherever pytest looks for tests
 (format: :mod:`oracle.pytest_support._suites`).  Fixtures: ``ntoracle`` (the
 oracle facade), ``ntoracle_bounds``, ``ntoracle_seed``, ``ntoracle_points``
@@ -25,6 +27,12 @@ oracle facade), ``ntoracle_bounds``, ``ntoracle_seed``, ``ntoracle_points``
 with the messages of the check items).  ``--ntoracle-hypothesis-profile
 ntoracle-ci`` (or the ini key of that name) loads the hypothesis settings
 profile of :mod:`oracle.strategies`; without it no hypothesis profile is loaded.
+
+Every failure prints one line that re-runs exactly that item, ``pytest --ntoracle-item ID``
+with the targets of its role, their settings, the seed and the profile
+(:mod:`oracle.pytest_support._reproduce`).  ``--ntoracle-report DIR`` writes the HTML
+report of ``ntoracle audit --report`` for the session; the terminal summary lists each
+role's verdict and reach (:mod:`oracle.pytest_support._session`).
 
 Python targets are imported and called only in isolated worker processes (the pytest
 process, which judges, never imports them); ``--ntoracle-in-process`` (or the ini key
@@ -44,18 +52,27 @@ import pytest
 
 #: User suite files are the files whose names end so (``pi.ntoracle.yaml``).
 SUITE_SUFFIX = ".ntoracle.yaml"
+#: The node ids of the bundled suites' items start so.
+BUNDLED_PREFIX = "ntoracle::"
 
-_HELP_TARGET = "ROLE=package.module:function: a Python target to check (repeatable)"
-_HELP_EXEC = "ROLE=CMD ARGS: an executable speaking the line protocol (repeatable)"
+_HELP_TARGET = ("ROLE=package.module:function [KEY=VALUE ...]: a Python target to check "
+                "(repeatable); settings: profile, max, timeout, primes_range, factor_shape, "
+                "invalid_input (quote the whole value when it has settings)")
+_HELP_EXEC = ("ROLE=CMD ARGS [KEY=VALUE ...]: an executable speaking the line protocol (repeatable); "
+              "the trailing KEY=VALUE words with a setting's name are settings")
 _HELP_PROFILE = "profile of the checks: quick, ci, deep or exhaustive (default quick)"
 _HELP_SEED = "seed of the sampled points (default: drawn at random and printed in the header)"
-_HELP_REPORT = "write the records of every check item and a summary.json into DIR"
+_HELP_REPORT = ("write report.html (the HTML report of 'ntoracle audit --report'), summary.json and "
+                "the records of every check item into DIR")
 _HELP_HYPOTHESIS = "load this hypothesis settings profile of oracle.strategies (ntoracle-ci, ntoracle-dev)"
 _HELP_BUNDLED = ("whether the bundled suites run: 'auto' (default) runs them unless files or "
                  "folders are named on the command line, 'yes' always, 'no' never")
+_HELP_ITEM = ("run only the item with exactly this node id (repeatable); the failures of ntoracle "
+              "checks print the whole command line")
 _HELP_IN_PROCESS = ("call Python targets in the pytest process instead of an isolated worker: "
                     "faster, but the target can then change the verdict; only for code you trust")
-_HELP_TARGETS_INI = "targets to check, one 'ROLE = package.module:function' a line"
+_HELP_TARGETS_INI = ("targets to check, one 'ROLE = package.module:function [KEY=VALUE ...]' a line "
+                     "(settings as for --ntoracle-target)")
 
 
 def pytest_addoption(parser):
@@ -73,6 +90,8 @@ def pytest_addoption(parser):
                     dest="ntoracle_bundled", help=_HELP_BUNDLED)
     group.addoption("--ntoracle-in-process", action="store_true", dest="ntoracle_in_process",
                     help=_HELP_IN_PROCESS)
+    group.addoption("--ntoracle-item", action="append", metavar="NODEID", dest="ntoracle_item",
+                    help=_HELP_ITEM)
     parser.addini("ntoracle_targets", _HELP_TARGETS_INI, type="linelist", default=[])
     parser.addini("ntoracle_in_process", _HELP_IN_PROCESS, type="bool", default=False)
     parser.addini("ntoracle_profile", _HELP_PROFILE, default="")
@@ -95,10 +114,10 @@ def pytest_configure(config):
         from .pytest_support._nodes import TargetPool
 
         config.stash[_settings.POOL] = TargetPool(in_process=settings.in_process)
-        if settings.report_dir and not hasattr(config, "workerinput"):
-            from .pytest_support._nodes import ReportWriter
+    if settings.active or settings.report_dir:      # else registered by the first suite file
+        from .pytest_support._session import register_tally
 
-            config.pluginmanager.register(ReportWriter(settings), "ntoracle-report")
+        register_tally(config)
     _hypothesis_profiles(config, settings)
 
 
@@ -158,7 +177,7 @@ def pytest_report_header(config):
     settings = config.stash.get(SETTINGS, None)
     if settings is None or not settings.active:
         return None
-    targets = ", ".join(f"{t.role}={t.spec}" for t in settings.targets)
+    targets = ", ".join(target.written() for target in settings.targets)
     return [f"ntoracle: seed {settings.seed} ({settings.seed_source}), profile {settings.profile}",
             f"ntoracle: targets {targets}"]
 
@@ -175,27 +194,53 @@ def pytest_collect_file(file_path, parent):
 def pytest_collection_modifyitems(session, config, items):
     """With targets configured, the bundled suites join the collected items (before ``-k``,
     ``-m``, ``--lf`` and ``--deselect`` choose among them), unless files or folders were named
-    on the command line (:func:`_bundled_wanted`)."""
+    on the command line (:func:`_bundled_wanted`).  With ``--ntoracle-item`` only the items of
+    exactly those ids are kept; an id that names no item is a usage error."""
     from .pytest_support._settings import SETTINGS
 
     settings = config.stash.get(SETTINGS, None)
-    if settings is None or not settings.active or not _bundled_wanted(config):
-        return
-    from .pytest_support._nodes import BundledSuites
+    if settings is not None and settings.active and _bundled_wanted(config):
+        from .pytest_support._nodes import BundledSuites
 
-    root = BundledSuites.from_parent(session, name="ntoracle", nodeid="ntoracle")
-    items.extend(_items_of(root, session))
+        root = BundledSuites.from_parent(session, name="ntoracle", nodeid="ntoracle")
+        items.extend(_items_of(root, session))
+    wanted = set(config.getoption("ntoracle_item", None) or ())
+    if wanted:
+        kept = [item for item in items if item.nodeid in wanted]
+        missing = sorted(wanted - {item.nodeid for item in kept})
+        if missing:
+            raise pytest.UsageError(f"ntoracle: --ntoracle-item {missing[0]!r}: no such item (the ids "
+                                    "of sampled points depend on the seed, the profile and the targets)")
+        config.hook.pytest_deselected(items=[item for item in items if item.nodeid not in wanted])
+        items[:] = kept
 
 
 def _bundled_wanted(config) -> bool:
     """The bundled suites follow pytest's own selection: with files or folders named on the
     command line (``pytest tests/test_fast.py``) they run only when asked for with
     ``--ntoracle-bundled yes``; with none named (the ini's testpaths or the current folder)
-    they run unless ``--ntoracle-bundled no``."""
+    they run unless ``--ntoracle-bundled no``.  With ``--ntoracle-item`` they run when one of
+    the ids is theirs."""
     choice = config.getoption("ntoracle_bundled", "auto")
     if choice != "auto":
         return choice == "yes"
+    wanted = config.getoption("ntoracle_item", None)
+    if wanted:
+        return any(nodeid.startswith(BUNDLED_PREFIX) for nodeid in wanted)
     return config.args_source != pytest.Config.ArgsSource.ARGS
+
+
+def pytest_ignore_collect(collection_path, config):
+    """With ``--ntoracle-item``, only the files of the ids given (and the folders holding
+    them) are collected: re-running one item does not import the rest of the test suite."""
+    wanted = config.getoption("ntoracle_item", None)
+    if not wanted:
+        return None
+    files = {config.rootpath / nodeid.split("::", 1)[0] for nodeid in wanted
+             if not nodeid.startswith(BUNDLED_PREFIX)}
+    if collection_path in files or any(collection_path in path.parents for path in files):
+        return None
+    return True
 
 
 def _items_of(collector, session):
@@ -217,14 +262,22 @@ def pytest_sessionfinish(session):
 
 
 def pytest_terminal_summary(terminalreporter, config):
-    from .pytest_support._settings import SETTINGS
+    """Per role and target, the verdict and the reach (:mod:`oracle.pytest_support._session`),
+    then the seed and the cautions."""
+    from .pytest_support._settings import SETTINGS, TALLY
 
     settings = config.stash.get(SETTINGS, None)
-    if settings is None or not settings.active:
+    tally = config.stash.get(TALLY, None)
+    if settings is None or not (settings.active or (tally is not None and tally.roles)):
         return
     from .report import CAUTIONS
 
     terminalreporter.section("ntoracle")
+    for role in (sorted(tally.roles.values(), key=lambda r: (r.role, r.target)) if tally else ()):
+        for line in role.lines():
+            terminalreporter.write_line(line)
+    if settings.report_dir:
+        terminalreporter.write_line(f"report: {settings.report_dir}/report.html and summary.json")
     terminalreporter.write_line(f"seed {settings.seed}, profile {settings.profile}: repeat with "
                                 f"--ntoracle-seed {settings.seed} --ntoracle-profile {settings.profile}")
     for caution in CAUTIONS:
@@ -265,12 +318,15 @@ def ntoracle_points(pytestconfig):
     return PointSampler(settings.seed, settings.profile)
 
 
-@pytest.fixture(scope="session")
-def ntoracle_check(pytestconfig):
+@pytest.fixture
+def ntoracle_check(request):
     """``ntoracle_check(role, function, points)`` and ``ntoracle_check.answer(role, arguments, got)``:
-    fail the test with input, got, expected, provenance and seed when the oracle disagrees."""
+    fail the test with input, got, expected, provenance, seed and the command that re-runs the
+    test when the oracle disagrees."""
     from .pytest_support._fixtures import Checker
+    from .pytest_support._reproduce import reproduce_line
     from .pytest_support._settings import SETTINGS
 
-    settings = pytestconfig.stash[SETTINGS]
-    return Checker(settings.seed, settings.profile)
+    settings = request.config.stash[SETTINGS]
+    return Checker(settings.seed, settings.profile,
+                   reproduce=reproduce_line(request.config, request.node.nodeid))

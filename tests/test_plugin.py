@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import importlib.metadata
 import json
+import shlex
 import sys
 import tomllib
 import xml.etree.ElementTree as ElementTree
@@ -98,7 +99,8 @@ def test_defective_target_fails_with_input_got_expected_provenance_and_seed(proj
         "    expected:   false",
         "    provenance: *",
         "smallest failing input: [[]46657[]]*",
-        "reproduce: pytest --ntoracle-seed 5 --ntoracle-profile quick -k 'carmichael[*",
+        "reproduce: pytest --ntoracle-item 'ntoracle::is_prime::carmichael[[]*]' "
+        "--ntoracle-target is_prime=fermat_prime:is_prime --ntoracle-seed 5 --ntoracle-profile quick",
     ])
 
 
@@ -477,3 +479,400 @@ def test_bundled_suites_follow_pytest_s_own_selection(project):
     assert everything.parseoutcomes()["passed"] > 10          # nothing named: the bundled suites too
     refused = project.runpytest(*PLUGIN, *target, "--ntoracle-bundled", "no")
     refused.assert_outcomes(passed=1)
+
+
+# -- per-target settings (issue 12, item 1) ---------------------------------------- #
+
+# Correct (sympy) up to 1000 and wrong above: every odd number above 1000 is called prime.
+WRONG_ABOVE_1000 = '''
+import sympy
+
+def is_prime(n):
+    if n <= 1000:
+        return bool(sympy.isprime(n))
+    return n % 2 == 1
+'''
+
+# The primes of [a, b) -- the half-open convention -- by sympy.
+HALF_OPEN_PRIMES = '''
+import sympy
+
+def primes_in(a, b):
+    return list(sympy.primerange(a, b))
+'''
+
+SLOW_AT_7919 = '''
+import time
+import sympy
+
+def is_prime(n):
+    if n == 7919:                     # the 1000th prime (OEIS A000040)
+        time.sleep(30)
+    return bool(sympy.isprime(n))
+'''
+
+EDGE_SUITE = '''
+    role: is_prime
+    cases:
+      - name: edge
+        values: [997, 1001, 1003]
+'''
+
+
+@pytest.fixture
+def settings_project(project):
+    project.makepyfile(wrong_above=WRONG_ABOVE_1000, half_open=HALF_OPEN_PRIMES, slow_prime=SLOW_AT_7919)
+    project.makefile(".ntoracle.yaml", edge=EDGE_SUITE)      # 1001 = 7 * 11 * 13, 1003 = 17 * 59
+    return project
+
+
+def test_a_max_on_the_command_line_keeps_a_candidate_wrong_only_above_it_green(settings_project):
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "-rs", "--ntoracle-seed", "1"]
+    unbounded = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime")
+    unbounded.assert_outcomes(passed=1, failed=2)
+    bounded = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime  max=1000")
+    bounded.assert_outcomes(passed=1, skipped=2)
+    bounded.stdout.fnmatch_lines(["ntoracle: targets is_prime=wrong_above:is_prime max=1000",
+                                  "SKIPPED*above the declared domain*skipped, not passed*"])
+
+
+def test_ini_settings_apply_and_the_command_line_beats_them_key_by_key(settings_project):
+    settings_project.makeini("[pytest]\npythonpath = .\nntoracle_targets =\n"
+                             "    is_prime = wrong_above:is_prime  max=1000  timeout=7\n")
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1"]
+    from_ini = settings_project.runpytest(*base)
+    from_ini.assert_outcomes(passed=1, skipped=2)
+    from_ini.stdout.fnmatch_lines(["ntoracle: targets is_prime=wrong_above:is_prime max=1000 timeout=7"])
+    # the same target on the command line: its max wins, the ini line's timeout stays
+    merged = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime max=1002")
+    merged.assert_outcomes(passed=1, failed=1, skipped=1)          # 1001 checked (wrong), 1003 above
+    merged.stdout.fnmatch_lines(["ntoracle: targets is_prime=wrong_above:is_prime max=1002 timeout=7"])
+
+
+def test_a_target_setting_beats_the_suite_file(settings_project):
+    settings_project.makefile(".ntoracle.yaml", edge='''
+        role: is_prime
+        max: 10**6
+        cases:
+          - name: edge
+            values: [997, 1001, 1003]
+    ''')
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1"]
+    suite_max = settings_project.runpytest(*base, "--ntoracle-target", "is_prime=wrong_above:is_prime")
+    suite_max.assert_outcomes(passed=1, failed=2)
+    target_max = settings_project.runpytest(*base, "--ntoracle-target",
+                                            "is_prime=wrong_above:is_prime max=1000")
+    target_max.assert_outcomes(passed=1, skipped=2)
+
+
+def test_a_convention_setting_judges_a_half_open_listing(settings_project):
+    settings_project.makefile(".ntoracle.yaml", windows='''
+        role: primes_in
+        cases:
+          - name: windows
+            values: [[0, 101], [89, 97], [1000, 1009]]
+    ''')
+    base = [*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1", "windows.ntoracle.yaml"]
+    closed = settings_project.runpytest(*base, "--ntoracle-target", "primes_in=half_open:primes_in")
+    closed.assert_outcomes(failed=3)        # 101, 97 and 1009 are prime (OEIS A000040): left out
+    half_open = settings_project.runpytest(*base, "--ntoracle-target",
+                                           "primes_in=half_open:primes_in primes_range=half-open")
+    half_open.assert_outcomes(passed=3)
+
+
+def test_a_timeout_setting_bounds_each_call(settings_project):
+    settings_project.makefile(".ntoracle.yaml", slow='''
+        role: is_prime
+        cases:
+          - name: thousandth
+            values: [7919]
+    ''')
+    result = settings_project.runpytest(*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1",
+                                        "slow.ntoracle.yaml", "--ntoracle-target",
+                                        "is_prime=slow_prime:is_prime timeout=0.5")
+    result.assert_outcomes(failed=1)
+    result.stdout.fnmatch_lines(["is_prime(7919): hung*"])
+
+
+@pytest.mark.parametrize("value, problem", [
+    ("is_prime=good_prime:is_prime maxx=3",
+     "*ntoracle: --ntoracle-target='is_prime=good_prime:is_prime maxx=3': unknown setting 'maxx'; "
+     "the settings are profile, max, timeout, primes_range, factor_shape, invalid_input"),
+    ("is_prime=good_prime:is_prime max=ten", "*--ntoracle-target=*: max='ten': *cannot read 'ten'*"),
+    ("is_prime=good_prime:is_prime max=-5", "*--ntoracle-target=*: max='-5': *"),
+    ("is_prime=good_prime:is_prime timeout=0", "*--ntoracle-target=*: timeout='0': must be *> 0*"),
+    ("is_prime=good_prime:is_prime primes_range=open",
+     "*--ntoracle-target=*: primes_range='open': expected one of closed, half-open"),
+    ("is_prime=good_prime:is_prime profile=fast", "*profile='fast': expected one of quick*"),
+    ("is_prime=good_prime:is_prime max=1 max=2", "*setting 'max' given twice"),
+    ("is_prime=good_prime:is_prime 1000", "*'1000' is not KEY=VALUE*"),
+])
+def test_bad_target_settings_are_usage_errors_naming_the_key(project, value, problem):
+    result = project.runpytest(*PLUGIN, "--ntoracle-target", value)
+    assert result.ret == pytest.ExitCode.USAGE_ERROR
+    result.stderr.fnmatch_lines([problem])
+    assert "Traceback" not in result.stderr.str()
+
+
+def test_a_bad_ini_setting_names_the_ini_line(project):
+    project.makeini("[pytest]\npythonpath = .\nntoracle_targets =\n"
+                    "    is_prime = good_prime:is_prime  timeout=soon\n")
+    result = project.runpytest(*PLUGIN)
+    assert result.ret == pytest.ExitCode.USAGE_ERROR
+    result.stderr.fnmatch_lines(["*ntoracle: ini ntoracle_targets line 'is_prime = good_prime:is_prime  "
+                                 "timeout=soon': timeout='soon': expected a number of seconds"])
+
+
+def test_executable_targets_take_trailing_settings(project):
+    project.makepyfile(line_prime=EXEC_IS_PRIME)
+    target = _settings.parse_target(f"is_prime={sys.executable} line_prime.py --fast  max=10**6 timeout=3",
+                                    kind="exec", source="--ntoracle-exec")
+    assert target.spec == f"{sys.executable} line_prime.py --fast"
+    assert (target.maximum, target.timeout) == (10**6, 3.0)
+    assert target.written() == f"is_prime={sys.executable} line_prime.py --fast max=1000000 timeout=3"
+
+
+def test_convention_names_agree_with_the_library():
+    import dataclasses
+
+    from oracle.roles import _role
+
+    assert set(_settings.CONVENTION_VALUES) == {f.name for f in dataclasses.fields(roles.Conventions)}
+    assert _settings.CONVENTION_VALUES["primes_range"] == _role.RANGE_CONVENTIONS
+    assert _settings.CONVENTION_VALUES["factor_shape"] == _role.FACTOR_SHAPES
+    assert _settings.CONVENTION_VALUES["invalid_input"] == _role.INVALID_INPUT_POLICIES
+
+
+# -- the HTML report and the session summary (issue 12, item 4) --------------------- #
+
+GOOD_PRIME_PI = '''
+import sympy
+
+def prime_pi(n):
+    return int(sympy.primepi(n))
+'''
+
+
+@pytest.fixture
+def two_role_project(project):
+    project.makepyfile(good_pi=GOOD_PRIME_PI)
+    project.makefile(".ntoracle.yaml", korselt='''
+        role: is_prime
+        target: fermat_prime:is_prime
+        cases:
+          - name: korselt
+            values: [29341, 7919]
+    ''', counts='''
+        role: prime_pi
+        target: good_pi:prime_pi
+        cases:
+          - name: powers
+            values: [10**3, 10**6]
+    ''')
+    return project
+
+
+def test_report_option_writes_the_audit_html_report_with_every_role(two_role_project):
+    result = two_role_project.runpytest(*PLUGIN, "--ntoracle-seed", "4", "--ntoracle-report", "out")
+    result.assert_outcomes(passed=3, failed=1)
+    page = (two_role_project.path / "out" / "report.html").read_text(encoding="utf-8")
+    assert page.startswith("<!DOCTYPE html>")
+    assert '<h2>is_prime: <span class="failed">failed</span></h2>' in page
+    assert '<h2>prime_pi: <span class="passed">passed</span></h2>' in page
+    assert "29341" in page                   # the Carmichael number 13 * 37 * 61 (OEIS A002997)
+    assert "ntoracle audit fermat_prime:is_prime --role is_prime" in page   # the CLI's repeat line
+    summary = json.loads((two_role_project.path / "out" / "summary.json").read_text())
+    verdicts = {entry["role"]: entry["verdict"] for entry in summary["roles"]}
+    assert verdicts == {"is_prime": "failed", "prime_pi": "passed"}
+
+
+def test_the_html_report_is_the_cli_renderer_s(two_role_project, monkeypatch):
+    """The page is oracle.report.render_html of the engine's summary of the same records."""
+    two_role_project.runpytest(*PLUGIN, "--ntoracle-seed", "4", "--ntoracle-report", "out",
+                               "counts.ntoracle.yaml")
+    from oracle import engine
+    from oracle.report._html import render_html
+
+    records = []
+    for path in sorted((two_role_project.path / "out" / "records").glob("*.jsonl")):
+        records += [r for r in engine.read_records(path) if r["type"] != "end"]
+    records = [r for i, r in enumerate(records) if r["type"] != "start" or i == 0]
+    for record in records:                     # the plugin files each check under its case
+        if record["type"] == "check":
+            record["family"] = "powers"
+    page = (two_role_project.path / "out" / "report.html").read_text(encoding="utf-8")
+    summary = engine.summarise(records + [{"type": "end", "elapsed": 0.0}])
+    assert summary["checks"] == 2 and summary["verdict"] == "passed"
+    expected = render_html([(summary, records)], command="x", title="ntoracle report of the pytest session")
+
+    def without_command_and_time(text: str) -> str:      # the two parts that differ between runs
+        text = text.split('id="cautions"', 1)[1]
+        before, after = text.split("<dt>time</dt>", 1)
+        return before + after.split("</dd>", 1)[1]
+
+    assert "<h3>Reach</h3>" in page and "<figure>" in page
+    assert without_command_and_time(page) == without_command_and_time(expected)
+
+
+def test_session_summary_lists_each_role_s_verdict_and_reach(two_role_project):
+    result = two_role_project.runpytest(*PLUGIN, "--ntoracle-seed", "4")
+    result.stdout.fnmatch_lines([
+        "*= ntoracle =*",
+        "is_prime (fermat_prime:is_prime): failed -- 2 item(s) (1 failed, 1 passed), 2 checks, 1 finding(s)",
+        "    reach: checked up to 29341 (korselt); 1 case(s) with checked inputs",
+        "prime_pi (good_pi:prime_pi): passed -- 2 item(s) (2 passed), 2 checks, 0 finding(s)",
+        "    reach: checked up to 10^6 (powers); 1 case(s) with checked inputs",
+    ], consecutive=False)
+
+
+def test_session_summary_counts_points_not_run(settings_project):
+    result = settings_project.runpytest(*PLUGIN, "--ntoracle-bundled", "no", "--ntoracle-seed", "1",
+                                        "--ntoracle-target", "is_prime=wrong_above:is_prime max=1000")
+    result.stdout.fnmatch_lines([
+        "is_prime (wrong_above:is_prime): passed -- 3 item(s) (1 passed, 2 skipped), 1 checks, 0 finding(s)",
+        "    reach: checked up to 997 (edge)*",
+        "    not run: 2 point(s), above the declared domain* (not counted as passed)"])
+
+
+# -- unique item ids and reproduce lines that reproduce (issue 12, item 3) ----------- #
+
+def _reproduce_lines(result) -> list[str]:
+    return [line.removeprefix("reproduce: ") for line in result.outlines if line.startswith("reproduce: ")]
+
+
+def _failure_text(result) -> list[str]:
+    """The lines of the failure messages (input, got, expected, provenance), without timings."""
+    return [line for line in result.outlines
+            if (line.startswith("ntoracle: ") and " failed " in line) or line.startswith(("    input:", "    got:", "    expected:", "    provenance:",
+                                "is_prime(", "prime_pi(", "primes_in(", "reproduce: "))]
+
+
+def _paste(pytester, line: str):
+    words = shlex.split(line)
+    assert words[0] == "pytest"
+    return pytester.runpytest(*PLUGIN, *words[1:])
+
+
+def test_a_pasted_reproduce_line_reruns_exactly_the_failed_bundled_item(project):
+    project.makepyfile(test_unrelated="def test_elsewhere():\n    assert True\n")
+    first = project.runpytest(*PLUGIN, "--ntoracle-target", "is_prime=fermat_prime:is_prime max=10**12",
+                              "--ntoracle-target", "is_prime=good_prime:is_prime",
+                              "--ntoracle-seed", "5", "-k", "carmichael or pseudoprimes")
+    lines = _reproduce_lines(first)
+    assert len(lines) == first.parseoutcomes()["failed"] >= 2
+    for line in lines:
+        assert "max=1000000000000" in line and "good_prime:is_prime" in line   # both targets, settings
+        again = _paste(project, line)
+        again.assert_outcomes(failed=1, deselected=again.parseoutcomes()["deselected"])
+        assert "test_elsewhere" not in again.stdout.str()
+        nodeid = shlex.split(line)[2]
+        assert f"FAILED {nodeid}" in again.stdout.str()
+        failed_here = [text for text in _failure_text(first) if nodeid.split("::")[-1] in text]
+        assert set(failed_here) <= set(_failure_text(again))
+
+
+def test_a_reproduce_line_carries_the_ini_targets_and_settings(settings_project):
+    settings_project.makeini("[pytest]\npythonpath = .\nntoracle_targets =\n"
+                             "    is_prime = wrong_above:is_prime  max=1002\nntoracle_seed = 8\n")
+    first = settings_project.runpytest(*PLUGIN, "--ntoracle-bundled", "no")
+    first.assert_outcomes(passed=1, failed=1, skipped=1)
+    [line] = _reproduce_lines(first)
+    assert line == ("pytest --ntoracle-item 'edge.ntoracle.yaml::is_prime::edge[1001]' --ntoracle-target "
+                    "'is_prime=wrong_above:is_prime max=1002' --ntoracle-seed 8 --ntoracle-profile quick")
+    settings_project.makeini("[pytest]\npythonpath = .\n")        # the line alone, without the ini
+    again = _paste(settings_project, line)
+    again.assert_outcomes(failed=1, deselected=2)
+    assert _failure_text(again) == _failure_text(first)
+
+
+def test_roles_sharing_a_case_name_and_label_are_told_apart(project):
+    project.makepyfile(good_pi=GOOD_PRIME_PI)
+    project.makefile(".ntoracle.yaml", both='''
+        role: is_prime
+        target: fermat_prime:is_prime
+        cases:
+          - name: random
+            random: {count: 3, low: 29341, high: 29341}
+          - name: small
+            values: [29341, 29341, 97]
+    ''', count='''
+        role: prime_pi
+        target: good_pi:prime_pi
+        cases:
+          - name: small
+            values: [29341, 97]
+    ''')
+    collected = project.runpytest(*PLUGIN, "--collect-only", "-q")
+    ids = [line for line in collected.outlines if "::" in line]
+    assert len(ids) == len(set(ids)) == 5, ids        # 29341 given twice runs once
+    first = project.runpytest(*PLUGIN, "--ntoracle-seed", "3")
+    first.assert_outcomes(failed=2, passed=3)          # 29341 = 13 * 37 * 61 (OEIS A002997)
+    for line in _reproduce_lines(first):
+        assert "--ntoracle-target" not in line         # the suite names its own target
+        again = _paste(project, line)
+        again.assert_outcomes(failed=1, deselected=2)     # only both.ntoracle.yaml is collected
+        assert "prime_pi" not in "".join(l for l in again.outlines if l.startswith(("FAILED", "PASSED")))
+
+
+# Wrong at every composite n = 1 (mod 50): called prime.
+ONE_MOD_50 = '''
+import sympy
+
+def is_prime(n):
+    return n % 50 == 1 or bool(sympy.isprime(n))
+'''
+
+
+def test_random_points_reproduce_from_the_printed_seed(project):
+    project.makepyfile(one_mod_50=ONE_MOD_50)
+    project.makefile(".ntoracle.yaml", draws='''
+        role: is_prime
+        target: one_mod_50:is_prime
+        cases:
+          - name: draws
+            segment: 1
+            random: {count: 400, low: 2, high: 10**6}
+    ''')
+    first = project.runpytest(*PLUGIN)                # a seed drawn at random
+    lines = _reproduce_lines(first)
+    assert lines and len(lines) == first.parseoutcomes()["failed"]
+    again = _paste(project, lines[0])
+    again.assert_outcomes(failed=1, deselected=again.parseoutcomes()["deselected"])
+    nodeid = shlex.split(lines[0])[2]
+    assert f"FAILED {nodeid}" in again.stdout.str()
+    assert "--ntoracle-seed" in lines[0]
+
+
+def test_hand_written_checks_print_a_line_that_reruns_the_test(project):
+    project.makepyfile(test_hand='''
+        from fermat_prime import is_prime as fermat
+
+        def test_passes(ntoracle_check):
+            ntoracle_check("is_prime", fermat, [2, 3, 97])
+
+        def test_check_fails(ntoracle_check):
+            ntoracle_check("is_prime", fermat, [29341])
+    ''')
+    first = project.runpytest(*PLUGIN, "--ntoracle-seed", "9")
+    first.assert_outcomes(passed=1, failed=1)
+    [line] = _reproduce_lines(first)
+    assert line == "pytest --ntoracle-item test_hand.py::test_check_fails --ntoracle-seed 9 --ntoracle-profile quick"
+    again = _paste(project, line)
+    again.assert_outcomes(failed=1, deselected=1)
+    assert _failure_text(again) == _failure_text(first)
+
+
+def test_an_item_id_that_names_no_item_is_a_usage_error(project):
+    result = project.runpytest(*PLUGIN, "--ntoracle-target", "is_prime=good_prime:is_prime",
+                               "--ntoracle-item", "ntoracle::is_prime::carmichael[1..2]")
+    assert result.ret == pytest.ExitCode.USAGE_ERROR
+    result.stderr.fnmatch_lines(["*--ntoracle-item 'ntoracle::is_prime::carmichael[[]1..2[]]': no such item*"])
+
+
+def test_bundled_item_ids_are_unique_for_every_role(project):
+    project.makepyfile(good_pi=GOOD_PRIME_PI)
+    arguments = [f"--ntoracle-target={role}=good_pi:prime_pi" for role in _settings.ROLE_NAMES]
+    collected = project.runpytest(*PLUGIN, *arguments, "--collect-only", "-q", "--ntoracle-seed", "2")
+    ids = [line for line in collected.outlines if line.startswith("ntoracle::")]
+    assert len(ids) > 50 and len(ids) == len(set(ids))
+    assert {line.split("::")[1] for line in ids} == set(_settings.ROLE_NAMES)

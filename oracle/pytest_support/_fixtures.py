@@ -43,8 +43,8 @@ class Checker:
     ``check.answer(role, arguments, got)`` judges one answer computed by the test itself.
     Both return the engine's summary when everything agrees."""
 
-    def __init__(self, seed: int, profile: str):
-        self.seed, self.profile = seed, profile
+    def __init__(self, seed: int, profile: str, reproduce: str | None = None):
+        self.seed, self.profile, self.reproduce = seed, profile, reproduce
 
     def __call__(self, role: str, function, points, *, conventions: dict | None = None,
                  description: str | None = None) -> dict:
@@ -54,7 +54,8 @@ class Checker:
                                conventions=conventions)
         if summary["failures"]:
             pytest.fail(failure_message(summary, role=role, target=target.description, case="check",
-                                        seed=self.seed, profile=self.profile), pytrace=False)
+                                        seed=self.seed, profile=self.profile, reproduce=self.reproduce),
+                        pytrace=False)
         return summary
 
     def answer(self, role: str, arguments, got, *, conventions: dict | None = None) -> dict:
@@ -88,4 +89,5 @@ class Checker:
         summary = {"passed": False, "checks": 1, "failures": [failure], "first_divergence": None,
                    "skipped": {}}
         pytest.fail(failure_message(summary, role=role, target="the answer given", case="answer",
-                                    seed=self.seed, profile=self.profile), pytrace=False)
+                                    seed=self.seed, profile=self.profile, reproduce=self.reproduce),
+                    pytrace=False)

@@ -17,23 +17,20 @@ targets, so pytest-xdist may run them in any order on any worker.
 
 from __future__ import annotations
 
-import hashlib
-import json
-import os
 import re
 import warnings
 from importlib import resources
 
 import pytest
 
-from ._settings import POOL, SETTINGS, Settings, TargetSetting
+from ._settings import POOL, SETTINGS, Effective, TargetSetting, effective
 from ._suites import Suite, SuiteError, groups_of, load_suite, small_exhaustive
 
 __all__ = ["SETTINGS", "POOL", "TargetPool", "BundledSuites", "SuiteFile", "CheckItem",
-           "SuiteErrorItem", "ReportWriter", "bundled_suite_paths"]
+           "SuiteErrorItem", "bundled_suite_paths"]
 
 _SAMPLES = pytest.StashKey[dict]()
-#: Characters kept in names made from a target's spec and in file names made from node ids.
+#: Characters kept in names made from a target's spec.
 _UNSAFE = re.compile(r"[^A-Za-z0-9_.\-]+")
 
 
@@ -89,27 +86,36 @@ class _TargetCollector(pytest.Collector):
     def __init__(self, *, suite: Suite, target: TargetSetting, **kwargs):
         super().__init__(**kwargs)
         self.suite, self.target = suite, target
+        self.effective: Effective = effective(suite, target, self.config.stash[SETTINGS])
 
     def collect(self):
         from .. import sampling
 
         settings = self.config.stash[SETTINGS]
-        profile = sampling.profile(self.suite.profile or settings.profile)
+        profile = sampling.profile(self.effective.profile)
         sampled = _sampled(self.config, self.suite.role, profile, settings.seed)
+        names: set[str] = set()
         for case in self.suite.cases:
             for group in groups_of(self.suite, case, profile=profile, seed=settings.seed,
                                    sampled=sampled):
-                yield CheckItem.from_parent(self, name=f"{group.case}[{group.label}]", group=group,
-                                            nodeid=_item_id(self, group))
+                name = _unique(f"{group.case}[{group.label}]", names)
+                yield CheckItem.from_parent(self, name=name, group=group, nodeid=f"{self.nodeid}::{name}")
 
     def reportinfo(self):
         return self.suite.path, self.suite.line - 1, f"{self.suite.name} ({self.target.spec})"
 
 
-def _item_id(parent, group) -> str:
-    """The item's node id, written out so that pytest reads the group's label as the item's
-    parameters (as for its own parametrised tests) and ``--lf`` recognises the ids it stored."""
-    return f"{parent.nodeid}::{group.case}[{group.label}]"
+def _unique(name: str, names: set[str]) -> str:
+    """``case[label]``, or ``case[label#2]`` for the second group with that label, so that
+    every item of a collector has its own id.  The node id is written out (parent ``::``
+    name) so that pytest reads the label as the item's parameters, as for its own
+    parametrised tests, and ``--lf`` and ``--ntoracle-item`` recognise the ids."""
+    chosen, count = name, 1
+    while chosen in names:
+        count += 1
+        chosen = f"{name[:-1]}#{count}]"
+    names.add(chosen)
+    return chosen
 
 
 def _target_children(parent, suite: Suite, targets: list[TargetSetting]):
@@ -142,6 +148,9 @@ class SuiteFile(pytest.File):
     """A user suite file (``*.ntoracle.yaml``)."""
 
     def collect(self):
+        from ._session import register_tally
+
+        register_tally(self.config)
         try:
             suite = load_suite(self.path)
         except SuiteError as error:
@@ -217,9 +226,11 @@ class CheckItem(pytest.Item):
         from ._judging import judge_invalid_inputs, judge_points
 
         settings = self.config.stash[SETTINGS]
-        suite, setting = self.suite, self.target_setting
-        profile = sampling.profile(suite.profile or settings.profile)
-        timeout = suite.timeout or profile.timeout
+        suite, setting, chosen = self.suite, self.target_setting, self.parent.effective
+        self.user_properties += [("ntoracle_role", suite.role), ("ntoracle_target", setting.spec),
+                                 ("ntoracle_case", self.group.case)]
+        profile = sampling.profile(chosen.profile)
+        timeout = chosen.timeout or profile.timeout
         try:
             pool = self.config.stash.setdefault(POOL, TargetPool(in_process=settings.in_process))
             target = pool.get(setting.kind, setting.spec, suite.role, timeout)
@@ -227,16 +238,17 @@ class CheckItem(pytest.Item):
             pytest.fail(f"ntoracle: {setting.source}: {error}", pytrace=False)
         points = self.group.arguments(roles.get(suite.role).arity)
         common = dict(role=suite.role, profile=profile.name, seed=settings.seed, points=points,
-                      timeout=timeout, conventions=suite.conventions, stream=self._stream_path())
+                      timeout=timeout, conventions=chosen.conventions, stream=self._stream_path())
         try:
             if self.group.kind == "invalid":
                 summary = judge_invalid_inputs(target, **common)
             else:
-                summary = judge_points(target, maximum=suite.maximum, **common)
+                summary = judge_points(target, maximum=chosen.maximum, **common)
         except OSError as error:                          # an executable that cannot be started
             pytest.fail(f"ntoracle: {setting.source}: cannot run {setting.spec!r}: {error}", pytrace=False)
-        self.user_properties += [("ntoracle_seed", settings.seed), ("ntoracle_checks", summary["checks"]),
-                                 ("ntoracle_findings", len(summary["failures"]))]
+        from ._session import item_properties
+
+        self.user_properties += [("ntoracle_seed", settings.seed), *item_properties(summary, self.group.case)]
         if summary["failures"]:
             raise CheckFailed(summary)
         reasons = "; ".join(f"{count} point(s): {reason}" for reason, count in summary["skipped"].items())
@@ -249,53 +261,29 @@ class CheckItem(pytest.Item):
             warnings.warn(PointsNotRun(f"{self.nodeid}: not run, so not passed: {reasons}"))
 
     def _stream_path(self) -> str | None:
+        from ._session import stream_path
+
         directory = self.config.stash[SETTINGS].report_dir
-        if not directory:
-            return None
-        digest = hashlib.sha1(self.nodeid.encode()).hexdigest()[:10]
-        name = _UNSAFE.sub("_", self.nodeid.replace("::", "--"))[-160:]
-        return os.path.join(directory, "records", f"{name}-{digest}.jsonl")
+        return stream_path(directory, self.nodeid) if directory else None
 
     def repr_failure(self, excinfo, style=None):
         if isinstance(excinfo.value, CheckFailed):
             from ._messages import failure_message
 
             settings = self.config.stash[SETTINGS]
-            profile = self.suite.profile or settings.profile
+            profile = self.parent.effective.profile
             return failure_message(excinfo.value.summary, role=self.suite.role,
                                    target=self.target_setting.spec, case=self.group.case,
-                                   seed=settings.seed, profile=profile,
-                                   reproduce=f"pytest --ntoracle-seed {settings.seed} "
-                                             f"--ntoracle-profile {profile} -k '{self._keyword()}'")
+                                   seed=settings.seed, profile=profile, reproduce=self.reproduce_line())
         return super().repr_failure(excinfo, style)
 
-    def _keyword(self) -> str:
-        """A ``-k`` expression selecting this item (``-k`` words cannot hold a comma)."""
-        return self.name if "," not in self.name else f"{self.suite.role} and {self.group.case}"
+    def reproduce_line(self) -> str:
+        """The command that re-runs exactly this item: its id, the targets of its role as
+        configured (a suite that names its own target needs none), the seed and profile."""
+        from ._reproduce import reproduce_line
+
+        own = isinstance(self.parent.parent, SuiteFile) and self.suite.target is not None
+        return reproduce_line(self.config, self.nodeid, role=None if own else self.suite.role)
 
     def reportinfo(self):
         return self.path, self.group.line - 1, f"{self.suite.role}: {self.name} ({self.target_setting.spec})"
-
-
-class ReportWriter:
-    """Registered with ``--ntoracle-report DIR`` (on the pytest-xdist controller, or the only
-    process): collects the outcome of every item and writes ``DIR/summary.json`` at the end;
-    the items themselves write their records to ``DIR/records/<item>.jsonl``."""
-
-    def __init__(self, settings: Settings):
-        self.settings = settings
-        self.outcomes: dict[str, str] = {}
-
-    def pytest_runtest_logreport(self, report):
-        if report.when == "call" or report.outcome != "passed":
-            self.outcomes[report.nodeid] = report.outcome
-
-    def pytest_sessionfinish(self, session):
-        directory = self.settings.report_dir
-        os.makedirs(directory, exist_ok=True)
-        data = {"seed": self.settings.seed, "profile": self.settings.profile,
-                "targets": [{"role": t.role, "kind": t.kind, "spec": t.spec}
-                            for t in self.settings.targets],
-                "items": self.outcomes}
-        with open(os.path.join(directory, "summary.json"), "w", encoding="utf-8") as handle:
-            json.dump(data, handle, indent=1)

@@ -430,7 +430,7 @@ def groups_of(suite: Suite, case: Case, *, profile, seed: int, sampled) -> list[
     arity = 2 if suite.role == "primes_in" else 1
     if case.kind == "values":
         return [Group(case.name, _label(point), "values", points=(point,), line=case.line)
-                for point in case.spec]
+                for point in dict.fromkeys(case.spec)]           # a point given twice runs once
     if case.kind == "invalid":
         if case.spec == "role":
             from ..roles import get
