@@ -133,13 +133,14 @@ def climb(run, seed: int) -> None:
     timeout = run.call_timeout()
     budget = run.options.oracle_budget
     steps = _steps(role.name, start, random.Random(f"{seed}:climb"))
-    for size, family, inputs in steps:
+    for index, (size, family, inputs) in enumerate(steps):
         if family in stopped:
             continue
+        ahead = {family} | {name for _, name, _ in steps[index + 1:]}    # families with steps left
         maximum = run.options.maximum
         inputs = [x for x in inputs if x >= role.minimum and (maximum is None or x <= maximum)]
         if not inputs:
-            for name in CLIMB_FAMILIES:
+            for name in ahead:
                 stopped.setdefault(name, (DECLARED_DOMAIN, size))
             break
         if family == CLIMB_TABLES and _thinned(run, inputs):
@@ -150,9 +151,9 @@ def climb(run, seed: int) -> None:
         share = RANDOM_SHARE if family == CLIMB_RANDOM else 1.0
         reason = _why_not(run, size, inputs, timeout, budget, share)
         if reason is not None:
-            for name in (CLIMB_FAMILIES if reason in _FOR_EVERY_LARGER_STEP else (family,)):
+            for name in (ahead if reason in _FOR_EVERY_LARGER_STEP else (family,)):
                 stopped.setdefault(name, (reason, size))
-            if len(stopped) == len(CLIMB_FAMILIES):
+            if ahead <= set(stopped):
                 break
             continue
         before = (len(run.too_slow), len(run.failures), run.faults)
@@ -163,7 +164,7 @@ def climb(run, seed: int) -> None:
         elif (len(run.failures), run.faults) != before[1:]:
             reason = AFTER_FAILURES
         if reason is not None:
-            for name in CLIMB_FAMILIES:
+            for name in ahead:
                 stopped.setdefault(name, (reason, None))
             break
     for family in CLIMB_FAMILIES:
