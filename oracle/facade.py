@@ -65,6 +65,8 @@ PRIMES_MAX_COUNT = 5 * 10**7
 # core of this machine counts the primes below 10**10 in about 0.5 s; our numpy
 # engine is slower).  Used only to choose a route and to refuse early.
 _SIEVE_SECONDS_PER_INTEGER = {"primesieve": 6e-11, "numpy": 6e-10}
+# The numpy engine on a short interval high up: small-prime sieve, survivors proven.
+_NUMPY_PROOF_SECONDS_PER_INTEGER = 3e-7
 # Beyond 2**64 a short interval is sieved by small primes and every survivor
 # is tested with Baillie-PSW; this caps the interval length.
 _SIEVE_MAX_SPAN_BEYOND_64 = 10**8
@@ -546,8 +548,12 @@ def _sieve_seconds(a: int, b: int) -> float | None:
     from .exact import sieve
 
     engine = "primesieve" if sieve.active_engine().startswith("primesieve") else "numpy"
-    # Sieving also needs the primes up to sqrt(b).
-    return (length + math.isqrt(b)) * _SIEVE_SECONDS_PER_INTEGER[engine]
+    # Sieving also needs the primes up to sqrt(b) -- except that the numpy engine
+    # proves the survivors of a small-prime sieve instead on a short interval high up.
+    seconds = (length + math.isqrt(b)) * _SIEVE_SECONDS_PER_INTEGER[engine]
+    if engine == "numpy":
+        seconds = min(seconds, length * _NUMPY_PROOF_SECONDS_PER_INTEGER)
+    return seconds
 
 
 def _sieve_count(kind: str, a: int, b: int) -> tuple[int, str]:
