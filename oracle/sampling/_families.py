@@ -307,8 +307,8 @@ FACTOR_BITS = tuple(range(8, 41))
 
 
 def factor_shapes(ceiling, profile, rng) -> list[int]:
-    """For every factor size b of 8..40 bits, two of each: balanced p·q (both b bits),
-    unbalanced p·Q (p of b bits, Q as large as the ceiling allows), p² and p³ (b bits);
+    """For every factor size b of 8..40 bits, three of each: balanced p·q (both b bits),
+    unbalanced p·Q (p of b bits, Q as large as the ceiling allows), p², p³ and p⁴ (b bits);
     and numbers of three or more factors: p²·q·r and a smooth part times q·r with q, r
     consecutive primes (common practice: a factoriser drops a repeated prime, or its
     Pollard rho meets gcd = n on equal or close factors and loops)."""
@@ -317,9 +317,9 @@ def factor_shapes(ceiling, profile, rng) -> list[int]:
     top = ceiling.bit_length() - 1
     found = set()
     for bits in FACTOR_BITS:
-        for _ in range(2):
+        for _ in range(3):
             p = _random_prime(bits, rng)
-            found.update((p * _random_prime(bits, rng), p**2, p**3))
+            found.update((p * _random_prime(bits, rng), p**2, p**3, p**4))
             if top - bits >= 8:
                 found.add(p * _random_prime(top - bits, rng))
             q = _random_prime(max(bits // 2, 4), rng)
