@@ -88,3 +88,30 @@ def test_climb_builds_registered_numbers_far_above_any_factoriser():
             assert 2**1000 < n < 2**1025
             built = adversarial.known(n)
             assert built is not None and built.verify()
+
+
+@pytest.mark.slow
+def test_audit_of_a_fast_candidate_climbs_on_constructed_numbers_to_the_top(tmp_path):
+    """A mobius built on python-flint (a test-only reference) answers the quick profile's climb
+    up to 2^512; every climbing point is judged from its construction."""
+    import json
+
+    from _references import flint
+    from oracle import engine, targets
+
+    flint.fmpz(1)                                   # skips the test without python-flint
+    (tmp_path / "flint_mobius.py").write_text(
+        "import flint\n\ndef mobius(n):\n    return int(flint.fmpz(n).moebius_mu())\n")
+    target = targets.python_target("flint_mobius:mobius", role_name="mobius", timeout=10,
+                                   isolate=True, python_path=[str(tmp_path)])
+    stream = tmp_path / "run.jsonl"
+    try:
+        summary = engine.run_audit(target, engine.AuditOptions(role="mobius", profile="quick",
+                                                               seed=1, stream=str(stream)))
+    finally:
+        target.close()
+    assert summary["passed"]
+    records = [json.loads(line) for line in stream.read_text().splitlines()]
+    climbed = [r for r in records if r.get("type") == "check" and r["family"] == "climb-bits"]
+    assert max(r["arguments"][0] for r in climbed) > 2**500
+    assert {r["provenance"] for r in climbed} == {"constructed: certified factors"}
