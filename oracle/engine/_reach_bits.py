@@ -1,4 +1,4 @@
-"""Reach by digits: primality, next/prev prime and factor climb far above 2⁶⁴.
+"""Reach by digits: primality, next/prev prime, factor and the arithmetic functions climb far above 2⁶⁴.
 
 The sampled families of ``is_prime``, ``next_prime``, ``prev_prime`` and
 ``factor`` stop between 2⁶⁴ and 2¹²⁸ (:mod:`oracle.sampling._profiles`).  A
