@@ -88,3 +88,20 @@ def test_float_answer_is_a_wrong_type():
 
     with pytest.raises(WrongType):
         roles.get("totient").normalise(4.0, Conventions())
+
+
+def test_command_line_value_of_the_arithmetic_functions(capsys):
+    import json
+
+    from oracle.cli import main
+
+    assert main(["value", "totient", "2**32+1"]) == 0          # (641 - 1)(6700417 - 1), sympy agrees
+    assert f"= {int(sympy.totient(2**32 + 1))}" in capsys.readouterr().out
+    assert main(["value", "divisor_sum", "360", "--json"]) == 0
+    shown = json.loads(capsys.readouterr().out)
+    assert shown["value"] == int(sympy.divisor_sigma(360, 1))
+    assert shown["provenance"] == "factorised+deterministic"
+    assert main(["value", "mobius", "0"]) == 2
+    hard = int(sympy.nextprime(2**70)) * int(sympy.nextprime(2**71))
+    assert main(["value", "mobius", str(hard), "--budget", "0.05"]) == 3
+    assert "out of exact reach" in capsys.readouterr().err
