@@ -98,10 +98,11 @@ def _split(m: int, multiplicity: int, found: dict[int, int], deadline: float) ->
 
 
 def _perfect_power(m: int) -> tuple[int, int]:
-    """``(r, k)`` with ``m = r^k`` and ``k`` largest (``(m, 1)`` when m is no perfect power)."""
-    for k in range(m.bit_length(), 1, -1):
-        if 2**k > m:
-            continue
+    """``(r, k)`` with ``m = r^k`` and ``k`` largest (``(m, 1)`` when m is no perfect power).
+
+    ``m`` has no prime factor below :data:`TRIAL_LIMIT` = 2¹⁶, so r > 2¹⁶ and
+    k < log₂(m) / 16: only those exponents are tried."""
+    for k in range((m.bit_length() - 1) // 16, 1, -1):
         root, exact = gmpy2.iroot(m, k)
         if exact:
             return int(root), k
