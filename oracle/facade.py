@@ -22,6 +22,14 @@ Routes and their provenance labels (docs/DESIGN.md, "The oracle's promise"):
 ``probable``
     Baillie–PSW above that bound: no counterexample is known, none is proven
     impossible.  A probable prime is not a proven prime.
+``factorised+deterministic`` / ``factorised+probable``
+    a factorisation found by trial division and Brent's rho within the budget
+    (:mod:`oracle.exact.factorisation`), each prime factor proven or probable as
+    above; μ, φ, d and σ are computed from it;
+``constructed: certified factors``
+    n was built from primes with Pocklington certificates and registered by
+    the sampling family that built it (:mod:`oracle.adversarial._constructed`):
+    its factorisation is proven at any size.
 
 Answers that took long to compute are kept on disk between runs
 (:mod:`oracle._store`); every route below passes through :func:`_kept`, the one
@@ -47,6 +55,7 @@ __all__ = [
     "Answer", "FactorizationReport",
     "pi", "twin_pi", "tuplet_pi", "count", "nth_prime", "is_prime",
     "next_prime", "prev_prime", "primes", "verify_factorization", "answer",
+    "factorization", "mobius", "totient", "divisor_count", "divisor_sum", "MULTIPLICATIVE",
     "FUNCTIONS", "TUPLET_KINDS", "DEFAULT_BUDGET_SECONDS",
 ]
 
@@ -215,6 +224,85 @@ def verify_factorization(n: int, factors) -> FactorizationReport:
 
 
 # --------------------------------------------------------------------------- #
+# Factorisation and the multiplicative functions
+# --------------------------------------------------------------------------- #
+
+def factorization(n: int, *, budget: float | None = None) -> dict[int, int]:
+    """The prime factorisation {p: e} of n ≥ 1 ({} for 1), or :class:`OutOfReachError`."""
+    return dict(_factorization(n, budget)[0])
+
+
+def mobius(n: int, *, budget: float | None = None) -> int:
+    """μ(n) for n ≥ 1: 0 if a square > 1 divides n, else (−1)^(number of prime factors)."""
+    return _multiplicative("mobius", n, budget).value
+
+
+def totient(n: int, *, budget: float | None = None) -> int:
+    """φ(n) for n ≥ 1: how many k in [1, n] have gcd(k, n) = 1 (φ(1) = 1)."""
+    return _multiplicative("totient", n, budget).value
+
+
+def divisor_count(n: int, *, budget: float | None = None) -> int:
+    """d(n) = σ₀(n) for n ≥ 1: the number of positive divisors (d(1) = 1)."""
+    return _multiplicative("divisor_count", n, budget).value
+
+
+def divisor_sum(n: int, *, budget: float | None = None) -> int:
+    """σ(n) = σ₁(n) for n ≥ 1: the sum of the positive divisors (σ(1) = 1)."""
+    return _multiplicative("divisor_sum", n, budget).value
+
+
+def _mobius_of(pairs) -> int:
+    return 0 if any(e > 1 for _, e in pairs) else (-1) ** len(pairs)
+
+
+def _totient_of(pairs) -> int:
+    return math.prod(p ** (e - 1) * (p - 1) for p, e in pairs)
+
+
+def _divisor_count_of(pairs) -> int:
+    return math.prod(e + 1 for _, e in pairs)
+
+
+def _divisor_sum_of(pairs) -> int:
+    return math.prod((p ** (e + 1) - 1) // (p - 1) for p, e in pairs)
+
+
+#: The multiplicative functions, each from the (p, e) pairs of n (Hardy & Wright, ch. XVI).
+MULTIPLICATIVE = {"mobius": _mobius_of, "totient": _totient_of,
+                  "divisor_count": _divisor_count_of, "divisor_sum": _divisor_sum_of}
+
+#: Provenance of a factorisation known from its construction.
+CONSTRUCTED = "constructed: certified factors"
+
+
+def _factorization(n, budget) -> tuple[list[tuple[int, int]], str]:
+    """The sorted (p, e) pairs of n and their provenance: the construction when n was
+    registered, else trial division and Brent's rho within the budget."""
+    n = require_int("n", n, minimum=1)
+    budget = _budget(budget)
+    from .adversarial import _constructed
+
+    built = _constructed.known(n)
+    if built is not None:
+        return sorted(built.factorisation.items()), CONSTRUCTED
+    from .exact import factorisation
+
+    try:
+        found, verdict = factorisation.factorise(n, budget)
+    except factorisation.TooSlow as error:
+        raise OutOfReachError(f"factorization({n}): {error} ({budget:g} s)") from None
+    return sorted(found.items()), f"factorised+{verdict}"
+
+
+def _multiplicative(function: str, n, budget) -> Answer:
+    pairs, provenance = _factorization(n, budget)
+    if function == "factorization":
+        return Answer(function, (n,), [list(pair) for pair in pairs], provenance)
+    return Answer(function, (n,), MULTIPLICATIVE[function](pairs), provenance)
+
+
+# --------------------------------------------------------------------------- #
 # The companion call
 # --------------------------------------------------------------------------- #
 
@@ -223,6 +311,7 @@ FUNCTIONS = {
     "pi": 1, "twin_pi": 1, "nth_prime": 1, "is_prime": 1, "next_prime": 1,
     "prev_prime": 1, "triplets_026": 1, "triplets_046": 1, "quadruplets": 1,
     "count": 3, "primes": 2,
+    "factorization": 1, "mobius": 1, "totient": 1, "divisor_count": 1, "divisor_sum": 1,
 }
 
 
@@ -255,6 +344,8 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
         return _next_prime(arguments[0])
     if function == "prev_prime":
         return _prev_prime(arguments[0])
+    if function == "factorization" or function in MULTIPLICATIVE:
+        return _multiplicative(function, arguments[0], budget)
     kind, a, b = arguments
     return _count(_check_kind(kind), a, b, budget)
 

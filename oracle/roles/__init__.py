@@ -17,12 +17,15 @@ from .._errors import InvalidInputError
 from ._role import AbsurdAnswer, Conventions, Role, Verdict, WrongType
 from . import (factor, is_prime, next_prime, nth_prime, prev_prime, prime_pi, primes_in,
                twin_pi)
+from . import divisor_count, divisor_sum, mobius, totient
 
 __all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES", "get", "infer"]
 
 #: Every role by name.
 ROLES: dict[str, Role] = {module.ROLE.name: module.ROLE for module in (
     prime_pi, twin_pi, nth_prime, is_prime, next_prime, prev_prime, primes_in, factor)}
+ROLES.update({module.ROLE.name: module.ROLE for module in (
+    mobius, totient, divisor_count, divisor_sum)})
 
 # Other names real libraries give the same function (used only to infer a role).
 _ALIASES = {
@@ -34,6 +37,9 @@ _ALIASES = {
     "primes": "primes_in", "primerange": "primes_in", "primes_between": "primes_in",
     "sieve": "primes_in", "factorint": "factor", "factorize": "factor",
     "factorise": "factor", "factorization": "factor",
+    "moebius": "mobius", "mu": "mobius", "phi": "totient", "euler_phi": "totient",
+    "divisors_count": "divisor_count", "num_divisors": "divisor_count", "tau": "divisor_count",
+    "sigma": "divisor_sum", "divisor_sigma": "divisor_sum", "sum_of_divisors": "divisor_sum",
 }
 
 
