@@ -73,12 +73,23 @@ def available_cores() -> int:
         return os.cpu_count() or 1
 
 
-def default_workers(x: int) -> int:
-    """Worker processes used when the caller does not say: all cores from ``MIN_PARALLEL_X`` on.
+def may_start_workers() -> bool:
+    """Whether this process may start worker processes.
 
-    A process that is itself a multiprocessing child uses one (no pools inside pools).
+    Not in a multiprocessing child (no pools inside pools), and not while one
+    is still starting: a ``spawn`` or ``forkserver`` child re-runs the calling
+    script's top level, and a script without the ``__main__`` guard would
+    otherwise start workers from each worker, for ever.  multiprocessing marks
+    that phase with ``current_process()._inheriting``.
     """
-    if x < MIN_PARALLEL_X or multiprocessing.parent_process() is not None:
+    if multiprocessing.parent_process() is not None:
+        return False
+    return not getattr(multiprocessing.current_process(), "_inheriting", False)
+
+
+def default_workers(x: int) -> int:
+    """Worker processes used when the caller does not say: all cores from ``MIN_PARALLEL_X`` on."""
+    if x < MIN_PARALLEL_X or not may_start_workers():
         return 1
     return available_cores()
 
@@ -232,8 +243,6 @@ def prime_pi_in_workers(x: int, workers: int, *, segment_size: int | None = None
     """
     y = choose_y(x, default_alpha(x))
     tables = prepare(x, y)
-    if report is not None:
-        report(0.0, "tables")
     size = default_segment_size(x, y) if segment_size is None else segment_size
     if size <= 0 or size % SEGMENT_GRANULE:
         raise ValueError(f"segment_size must be a positive multiple of {SEGMENT_GRANULE}")
@@ -245,6 +254,8 @@ def prime_pi_in_workers(x: int, workers: int, *, segment_size: int | None = None
     leaves = EasyLeaves(tables)
     pool = _get_pool(workers)
     try:
+        if report is not None:
+            report(0.0, "tables")
         table = [pool.apply_async(_table_block, (x, y, first, stop))
                  for first, stop in leaves.table_rows_by_cost(pieces)]
         hard = [pool.apply_async(_hard_block, (x, y, segments, first, stop))

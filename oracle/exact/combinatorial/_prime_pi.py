@@ -16,7 +16,7 @@ from ..._errors import OutOfReachError
 from ..._integers import require_int
 from ._cost_model import estimated_seconds
 from ._deleglise_rivat import LARGEST_X, prime_pi_deleglise_rivat
-from ._parallel import default_workers, prime_pi_in_workers
+from ._parallel import default_workers, may_start_workers, prime_pi_in_workers
 from ._run_clock import RunClock, check_budget, validate_budget
 from ._small_range import SMALL_LIMIT, small_prime_pi
 
@@ -48,7 +48,7 @@ def prime_pi(x: int, *, time_budget: float | None = None,
     check_budget(what, estimated_seconds(x), budget)
     clock = RunClock(what, budget, progress)
     workers = default_workers(x) if workers is None else workers
-    if workers > 1:
+    if workers > 1 and may_start_workers():
         result = prime_pi_in_workers(x, workers, report=clock.report)
     else:
         result = prime_pi_deleglise_rivat(x, report=clock.report)
