@@ -16,8 +16,13 @@ def judge(role_name, arguments, raw, conventions=CONVENTIONS):
 
 
 def test_registry_has_the_eight_roles_of_the_design():
-    assert set(roles.ROLES) == {"prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
+    assert set(roles.ROLES) >= {"prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
                                 "prev_prime", "primes_in", "factor"}
+
+
+def test_registry_has_the_sums_of_issue_15():
+    assert set(roles.ROLES) >= {"prime_sum", "mertens", "squarefree_count", "triplet_pi_026",
+                                "triplet_pi_046", "quadruplet_pi"}
 
 
 @pytest.mark.parametrize("name, role", [("prime_pi", "prime_pi"), ("my_prime_pi", "prime_pi"),

@@ -42,6 +42,9 @@ REPOSITORY_ROOT = TESTS_DIR.parent
 CATALOGUE_PATH = TESTS_DIR / "zoo" / "catalogue.yaml"
 ROLES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
          "prev_prime", "primes_in", "factor")
+#: The roles of issue 15, each with at least two defective members and one correct one.
+NEW_ROLES = ("prime_sum", "mertens", "squarefree_count", "triplet_pi_026", "triplet_pi_046",
+             "quadruplet_pi")
 KINDS = ("wrong_value", "wrong_type", "exception", "hang", "nondeterministic", "crash")
 
 if str(TESTS_DIR) not in sys.path:
@@ -136,6 +139,26 @@ def reference_twin_pi(x: int) -> int:
     raise AssertionError(f"twin_pi reference sieve ends at {LARGE_SIEVE_LIMIT}, asked {x}")
 
 
+def _cumulative_prime_sums(limit: int) -> np.ndarray:
+    """sums[x] = the sum of the primes p <= x, for x <= limit (int64: exact below 2**63)."""
+    flags = PRIME_FLAGS[:limit + 1] if limit <= SIEVE_LIMIT else sieve_of_eratosthenes(limit)
+    return np.cumsum(np.where(flags, np.arange(limit + 1, dtype=np.int64), 0))
+
+
+PRIME_SUMS = _cumulative_prime_sums(SIEVE_LIMIT)
+
+
+def reference_prime_sum(x: int) -> int:
+    """The sum of the primes p <= x from the sieve written here."""
+    if x < 2:
+        return 0
+    if x <= SIEVE_LIMIT:
+        return int(PRIME_SUMS[x])
+    if x <= LARGE_SIEVE_LIMIT:
+        return int(_cumulative_prime_sums(x)[-1])
+    raise AssertionError(f"prime_sum reference sieve ends at {LARGE_SIEVE_LIMIT}, asked {x}")
+
+
 def reference_factor(n: int) -> dict[int, int]:
     """python-flint's factorisation as {prime: exponent}."""
     return {int(p): int(e) for p, e in flint.fmpz(n).factor()}
@@ -150,6 +173,7 @@ REFERENCE = {
     "prev_prime": lambda n: int(gmpy2.prev_prime(n)),
     "primes_in": lambda a, b: [int(p) for p in sympy.primerange(a, b + 1)],
     "factor": reference_factor,
+    "prime_sum": reference_prime_sum,
 }
 
 
@@ -244,7 +268,7 @@ def test_catalogue_ids_are_unique():
 
 @pytest.mark.parametrize("entry", [pytest.param(e, id=e["id"]) for e in CATALOGUE])
 def test_catalogue_entry_is_well_formed(entry):
-    assert entry["role"] in ROLES
+    assert entry["role"] in ROLES + NEW_ROLES
     assert ("target" in entry) != ("exec" in entry), "exactly one of target / exec"
     assert isinstance(entry["defective"], bool)
     if "max" in entry:
@@ -273,6 +297,8 @@ def test_catalogue_covers_every_role():
     for role in ROLES:
         assert defective[role] >= 4, role
         assert correct[role] >= 1, role
+    for role in {e["role"] for e in CATALOGUE} & set(NEW_ROLES):
+        assert defective[role] >= 2 and correct[role] >= 1, role
     executables = [e for e in CATALOGUE if "exec" in e]
     assert sum(not e["defective"] for e in executables) >= 2
     assert {e["kind"] for e in executables if e["defective"]} >= {"wrong_value", "crash"}
@@ -322,6 +348,8 @@ POINTS = {
     "factor": list(range(1, 300)) + sample(1, 10**15, 100)
     + [2**32 + 1, 2**64 - 1, 2**64 + 1, 1009**2, 1009 * 1013 * 1019, 42799, 3215031751,
        2**10 * 3**5 * 1000003, (2**31 - 1) ** 2, 600851475143],
+    "prime_sum": list(range(-3, 120)) + sample(0, SIEVE_LIMIT, 150)
+    + [631, 929, 225286, 225287, 323381, SIEVE_LIMIT],
 }
 
 # A second reference for each correct member, never the library the member is built on.
@@ -338,6 +366,7 @@ SECOND_REFERENCE = {
     "primes_in_primesieve": lambda a, b: [int(p) for p in sympy.primerange(a, b + 1)],
     "prime_pi_chatty": lambda x: int(primecountpy.prime_pi(x)) if x >= 2 else 0,
     "factor_sympy": reference_factor,
+    "prime_sum_sympy": reference_prime_sum,
 }
 
 

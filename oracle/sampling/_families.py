@@ -206,6 +206,18 @@ def twin_answer_words(ceiling, profile, rng) -> list[int]:
     return _below(_twin_word_points(), ceiling)
 
 
+#: The least prime p with p₁ + ... + p ≥ 2^w, for the word sizes w where a sum of primes kept
+#: in a machine word or a double goes wrong (computed with the oracle's sieve; tests compare
+#: with sympy up to w = 32 and with primesieve for w = 53).
+PRIME_SUM_WORDS = {15: 631, 16: 929, 31: 225287, 32: 323381, 53: 595600673}
+
+
+def sum_words(ceiling, profile, rng) -> list[int]:
+    """x = p − 1, p, p + 1 for the primes p of :data:`PRIME_SUM_WORDS`: the sum of the
+    primes up to x crosses 2^w there (int16, uint16, int32, uint32, the double's 53 bits)."""
+    return _below((p + d for p in PRIME_SUM_WORDS.values() for d in (-1, 0, 1)), ceiling)
+
+
 def prime_powers(ceiling, profile, rng) -> list[int]:
     """p^e and p^e ± 1, ± 2 for e = 2..5, p the primes nearest 2^(j/e) for every boundary
     exponent j of the profile, and every power of 2, 3, 5, 7 (common practice: x = p³ breaks a float cube
@@ -384,6 +396,7 @@ FAMILIES = {
     "mersenne-fermat": mersenne_fermat, "factor-shapes": factor_shapes,
     "trial-bounds": trial_bounds,
 }
+FAMILIES["sum-words"] = sum_words
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",
                    "factor": "factorization"}

@@ -1,0 +1,159 @@
+"""The sums of issue 15: the oracle's exact values against published tables and sympy,
+and the roles built on them (prime_sum, mertens, squarefree_count, the triplet and
+quadruplet counts)."""
+
+import bisect
+import random
+
+import pytest
+import sympy
+
+from oracle import InvalidInputError, OutOfReachError, facade, roles
+from oracle.exact import mobius_sums, prime_sums
+from oracle.roles import Conventions
+from oracle.roles._sums import KnownSums
+from oracle.sampling import _families
+
+# OEIS A077645, the sum of the primes with n decimal digits, n = 1..7, read on 2026-12-03 with
+# the project's search tool (oeis.org/A077645); its partial sums are OEIS A046731, the sum of
+# the primes below 10^n (10^n is not prime, so "below" and "up to" agree).
+N_DIGIT_PRIME_SUMS = [17, 1043, 75067, 5660269, 448660141, 37096005486, 3165774592333]
+# OEIS A084237, M(10^n) for n = 0..9, read on 2026-12-03 with the project's search tool.
+MERTENS_AT_POWERS_OF_TEN = [1, -1, 1, 2, -23, -48, 212, 1037, 1928, -222]
+# OEIS A071172, Q(10^n) for n = 0..21, read on 2026-12-03 with the project's search tool.
+SQUAREFREE_AT_POWERS_OF_TEN = [
+    1, 7, 61, 608, 6083, 60794, 607926, 6079291, 60792694, 607927124, 6079270942,
+    60792710280, 607927102274, 6079271018294, 60792710185947, 607927101854103,
+    6079271018540405, 60792710185403794, 607927101854022750, 6079271018540280875,
+    60792710185402613302, 607927101854026645617]
+
+
+def test_prime_sum_at_powers_of_ten_agrees_with_oeis_a077645_partial_sums():
+    total = 0
+    for n, piece in enumerate(N_DIGIT_PRIME_SUMS, start=1):
+        total += piece
+        assert facade.prime_sum(10**n) == total, n
+
+
+def test_prime_sum_agrees_with_sympy_at_random_points():
+    rng = random.Random(15)
+    listed = list(sympy.primerange(2, 10**6 + 1))
+    for x in [0, 1, 2, 3, 4, 5] + [rng.randrange(0, 10**6) for _ in range(40)]:
+        assert facade.prime_sum(x) == sum(listed[:bisect.bisect_right(listed, x)]), x
+
+
+def test_prime_sum_between_near_two_to_the_64_is_exact_beyond_uint64():
+    # the sum of a few primes just below 2**64 exceeds 2**64: the half-word sums must carry
+    low = 2**64 - 1000
+    expected = sum(p for p in range(low, 2**64) if sympy.isprime(p))
+    assert prime_sums.prime_sum_between(low, 2**64 - 1) == expected
+    assert expected > 2**64
+
+
+def test_mertens_at_powers_of_ten_agrees_with_oeis_a084237():
+    for n, value in enumerate(MERTENS_AT_POWERS_OF_TEN[:8]):
+        assert facade.mertens(10**n) == value, n
+
+
+def test_mobius_sieve_agrees_with_sympy():
+    low = 10**9 - 500
+    assert list(mobius_sums.mobius_between(low, low + 500)) == [
+        int(sympy.mobius(n)) for n in range(low, low + 501)]
+    assert list(mobius_sums.mobius_between(1, 2000)) == [int(sympy.mobius(n)) for n in range(1, 2001)]
+
+
+def test_squarefree_count_at_powers_of_ten_agrees_with_oeis_a071172():
+    for n, value in enumerate(SQUAREFREE_AT_POWERS_OF_TEN[:15]):
+        assert facade.squarefree_count(10**n) == value, n
+
+
+@pytest.mark.slow
+def test_squarefree_count_up_to_ten_to_the_18_agrees_with_oeis_a071172():
+    for n in range(15, 19):                      # 10^18 < 2^63; a Möbius sieve up to 10^9
+        assert facade.squarefree_count(10**n) == SQUAREFREE_AT_POWERS_OF_TEN[n], n
+
+
+def test_squarefree_count_agrees_with_sympy_at_small_points():
+    running = 0
+    for n in range(1, 3000):
+        running += sympy.mobius(n) != 0
+        assert facade.squarefree_count(n) == running
+
+
+def test_squarefree_count_beyond_two_to_the_63_is_out_of_reach():
+    with pytest.raises(OutOfReachError):
+        facade.squarefree_count(2**63)
+
+
+@pytest.mark.parametrize("kind, offsets", [("triplets_026", (0, 2, 6)), ("triplets_046", (0, 4, 6)),
+                                           ("quadruplets", (0, 2, 6, 8))])
+def test_constellation_counts_agree_with_sympy(kind, offsets):
+    limit = 2 * 10**5
+    flags = [False] * (limit + 9)
+    for p in sympy.primerange(2, limit + 9):
+        flags[p] = True
+    counts, running = [0] * (limit + 1), 0
+    for x in range(limit + 1):            # a constellation counts once its last member is <= x
+        first = x - offsets[-1]
+        running += first >= 0 and all(flags[first + d] for d in offsets)
+        counts[x] = running
+    rng = random.Random(kind)
+    for x in list(range(0, 200)) + [rng.randrange(0, limit) for _ in range(30)]:
+        assert facade.tuplet_pi(kind, x) == counts[x], (kind, x)
+
+
+def test_interval_sums_add_up_to_the_whole():
+    for function in ("prime_sum", "mertens"):
+        whole = facade.answer(function, 10**6).value
+        parts = facade.answer(function, 654321).value + facade.interval_sum(
+            function, 654322, 10**6).value
+        assert parts == whole
+
+
+def test_known_sums_walk_from_the_nearest_point_to_the_same_values():
+    for function in ("prime_sum", "mertens", "triplets_026", "quadruplets"):
+        memory = KnownSums(function)
+        for x in (10**6, 10**6 + 17, 999_000, 5, 10**6 - 3):
+            assert memory.exact(x, 10)[0] == facade.answer(function, x).value, (function, x)
+
+
+def test_roles_judge_exact_values_and_refuse_negative_sums():
+    judge = roles.get("prime_sum").judge
+    assert judge((10,), 17, Conventions(), 10).passed
+    assert not judge((10,), 18, Conventions(), 10).passed
+    assert not judge((10,), -1, Conventions(), 10).passed
+    assert roles.get("mertens").judge((3,), -1, Conventions(), 10).passed
+    assert roles.get("quadruplet_pi").judge((13,), 1, Conventions(), 10).passed   # (5, 7, 11, 13)
+    assert roles.get("triplet_pi_046").judge((13,), 1, Conventions(), 10).passed  # (7, 11, 13)
+
+
+def test_sum_relations_find_a_decrease_and_a_wrong_difference_beyond_reach():
+    role = roles.get("prime_sum")
+    answers = {(100,): 1060, (101,): 1000}
+    verdicts = {a: role.judge(a, v, Conventions(), 10) for a, v in answers.items()}
+    found = role.relations(answers, verdicts, 10)
+    assert [v.check for _, _, v in found] == ["monotone"]
+    beyond = roles.Verdict("exact", True, None, "none", "", reach=False)
+    answers = {(10**6,): facade.prime_sum(10**6), (10**6 + 10,): facade.prime_sum(10**6) + 5}
+    found = role.relations(answers, {a: beyond for a in answers}, 10)
+    assert [v.check for _, _, v in found] == ["short-interval"]
+    assert found[0][2].expected == 1000003          # the only prime in (10^6, 10^6 + 10]
+
+
+def test_prime_sum_words_are_where_the_sum_crosses_each_word_size():
+    listed = list(sympy.primerange(2, 400_000))
+    running = 0
+    crossings = {}
+    for p in listed:
+        running += p
+        for w in (15, 16, 31, 32):
+            if w not in crossings and running >= 2**w:
+                crossings[w] = p
+    assert {w: _families.PRIME_SUM_WORDS[w] for w in crossings} == crossings
+
+
+def test_bad_progression_and_summatory_arguments_are_refused():
+    with pytest.raises(InvalidInputError):
+        facade.interval_sum("pi", 0, 10)
+    with pytest.raises(InvalidInputError):
+        facade.interval_sum("prime_sum", 0, 10, 3, 1)
