@@ -159,6 +159,58 @@ def reference_prime_sum(x: int) -> int:
     raise AssertionError(f"prime_sum reference sieve ends at {LARGE_SIEVE_LIMIT}, asked {x}")
 
 
+def _mobius_by_sieve(limit: int) -> np.ndarray:
+    """mu[n] for 0 <= n <= limit (mu[0] = 0), by a Moebius sieve written here."""
+    mu = np.ones(limit + 1, dtype=np.int64)
+    rest = np.arange(limit + 1, dtype=np.int64)
+    for p in np.flatnonzero(sieve_of_eratosthenes(math.isqrt(limit))).tolist():
+        mu[p::p] *= -1
+        rest[p::p] //= p
+        mu[p * p::p * p] = 0
+    mu[rest > 1] *= -1
+    mu[0] = 0
+    return mu
+
+
+MERTENS = np.cumsum(_mobius_by_sieve(SIEVE_LIMIT))
+
+
+def reference_mertens(x: int) -> int:
+    if x < 1:
+        return 0
+    if x <= SIEVE_LIMIT:
+        return int(MERTENS[x])
+    return int(np.sum(_mobius_by_sieve(x)))
+
+
+def reference_squarefree_count(x: int) -> int:
+    """Q(x) = sum of mu(d) * (x // d^2) over d <= sqrt(x), mu from the sieve written here."""
+    if x < 1:
+        return 0
+    root = math.isqrt(x)
+    mu = _mobius_by_sieve(root).tolist()
+    return sum(mu[d] * (x // (d * d)) for d in range(1, root + 1) if mu[d])
+
+
+def reference_constellations(offsets):
+    """The number of constellations p + offsets, all prime, with p + offsets[-1] <= x."""
+    span = offsets[-1]
+    last = np.zeros(SIEVE_LIMIT + 1, dtype=np.int64)
+    ok = np.ones(SIEVE_LIMIT + 1 - span, dtype=bool)
+    for d in offsets:
+        ok &= PRIME_FLAGS[d:SIEVE_LIMIT + 1 - span + d]
+    last[span:] = ok
+    counts = np.cumsum(last)
+
+    def count(x: int) -> int:
+        if x < 0:
+            return 0
+        if x > SIEVE_LIMIT:
+            raise AssertionError(f"constellation reference ends at {SIEVE_LIMIT}, asked {x}")
+        return int(counts[x])
+    return count
+
+
 def reference_factor(n: int) -> dict[int, int]:
     """python-flint's factorisation as {prime: exponent}."""
     return {int(p): int(e) for p, e in flint.fmpz(n).factor()}
@@ -174,6 +226,11 @@ REFERENCE = {
     "primes_in": lambda a, b: [int(p) for p in sympy.primerange(a, b + 1)],
     "factor": reference_factor,
     "prime_sum": reference_prime_sum,
+    "mertens": reference_mertens,
+    "squarefree_count": reference_squarefree_count,
+    "triplet_pi_026": reference_constellations((0, 2, 6)),
+    "triplet_pi_046": reference_constellations((0, 4, 6)),
+    "quadruplet_pi": reference_constellations((0, 2, 6, 8)),
 }
 
 
@@ -350,6 +407,11 @@ POINTS = {
        2**10 * 3**5 * 1000003, (2**31 - 1) ** 2, 600851475143],
     "prime_sum": list(range(-3, 120)) + sample(0, SIEVE_LIMIT, 150)
     + [631, 929, 225286, 225287, 323381, SIEVE_LIMIT],
+    "mertens": list(range(-3, 200)) + sample(0, 10**6, 100) + [10**4, 10**5, 10**6],
+    "squarefree_count": list(range(-3, 200)) + sample(0, 10**12, 60)
+    + [10**8, 100020000, 100020001, 10**12],
+    **{role: list(range(-3, 200)) + sample(0, SIEVE_LIMIT, 100) + [SIEVE_LIMIT]
+       for role in ("triplet_pi_026", "triplet_pi_046", "quadruplet_pi")},
 }
 
 # A second reference for each correct member, never the library the member is built on.
@@ -367,6 +429,11 @@ SECOND_REFERENCE = {
     "prime_pi_chatty": lambda x: int(primecountpy.prime_pi(x)) if x >= 2 else 0,
     "factor_sympy": reference_factor,
     "prime_sum_sympy": reference_prime_sum,
+    "mertens_sympy": reference_mertens,
+    "squarefree_count_sympy": reference_squarefree_count,
+    "triplet_pi_026_sympy": REFERENCE["triplet_pi_026"],
+    "triplet_pi_046_sympy": REFERENCE["triplet_pi_046"],
+    "quadruplet_pi_sympy": REFERENCE["quadruplet_pi"],
 }
 
 

@@ -14,6 +14,6 @@ ROLE = Role(
     signature="squarefree_count(x) -> int: number of squarefree n with 1 <= n <= x; 0 for x < 1",
     normalise=normalise_sum, judge=sum_judge("squarefree_count"),
     relations=sum_relations("squarefree_count", monotone=True),
-    families=("exhaustive", "boundaries", "squares", "segments", "uniform", "log-uniform",
-              "prime-powers"),
+    families=("exhaustive", "boundaries", "squares", "square-steps", "segments", "uniform",
+              "log-uniform", "prime-powers"),
 )

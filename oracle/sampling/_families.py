@@ -218,6 +218,19 @@ def sum_words(ceiling, profile, rng) -> list[int]:
     return _below((p + d for p in PRIME_SUM_WORDS.values() for d in (-1, 0, 1)), ceiling)
 
 
+def square_steps(ceiling, profile, rng) -> list[int]:
+    """d² − 1 and d² for d = B − 1, ..., B + 3 around every power B of two and of ten: at
+    x = d² the term μ(d)·⌊x/d²⌋ of Q(x) = Σ μ(d)·⌊x/d²⌋ first counts, so a squarefree count
+    whose table of μ or whose loop over d stops at a round B goes wrong there (common
+    practice: tables sized at round numbers; a float square root that rounds down)."""
+    found = set()
+    bases = {2**k for k in range(2, 33)} | {10**k for k in range(1, 10)}
+    for base in bases:
+        for d in range(base - 1, base + 4):
+            found.update((d * d - 1, d * d))
+    return _below(found, ceiling)
+
+
 def prime_powers(ceiling, profile, rng) -> list[int]:
     """p^e and p^e ± 1, ± 2 for e = 2..5, p the primes nearest 2^(j/e) for every boundary
     exponent j of the profile, and every power of 2, 3, 5, 7 (common practice: x = p³ breaks a float cube
@@ -397,6 +410,7 @@ FAMILIES = {
     "trial-bounds": trial_bounds,
 }
 FAMILIES["sum-words"] = sum_words
+FAMILIES["square-steps"] = square_steps
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",
                    "factor": "factorization"}
