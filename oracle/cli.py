@@ -104,7 +104,7 @@ _NO_STORE_HELP = ("neither read nor keep answers in the on-disk store of slow an
 
 ROLE_NAMES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
               "primes_in", "factor")
-ROLE_NAMES += ("prime_sum", "mertens", "squarefree_count", "triplet_pi_026", "triplet_pi_046",
+ROLE_NAMES += ("prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "triplet_pi_026", "triplet_pi_046",
                "quadruplet_pi")
 PROFILE_NAMES = ("quick", "ci", "deep", "exhaustive")
 

@@ -157,3 +157,46 @@ def test_bad_progression_and_summatory_arguments_are_refused():
         facade.interval_sum("pi", 0, 10)
     with pytest.raises(InvalidInputError):
         facade.interval_sum("prime_sum", 0, 10, 3, 1)
+
+
+def test_prime_pi_mod_agrees_with_sympy_in_every_small_class():
+    listed = list(sympy.primerange(2, 10**5 + 1))
+    rng = random.Random(4)
+    for q in (1, 2, 3, 4, 5, 8, 12, 30, 65537):
+        for a in [a for a in range(q) if sympy.gcd(a, q) == 1][:6]:
+            for x in (0, 1, 2, 3, 7, rng.randrange(0, 10**5), 10**5):
+                expected = sum(1 for p in listed if p <= x and p % q == a)
+                assert facade.prime_pi_mod(x, q, a) == expected, (x, q, a)
+                assert facade.prime_pi_mod(x, q, a + q) == expected     # a is read modulo q
+
+
+def test_prime_pi_mod_chebyshev_bias_at_ten_to_the_6():
+    # pi(10^6; 4, 3) = 39322 > pi(10^6; 4, 1) = 39175 (from memory; checked here by sympy)
+    listed = list(sympy.primerange(2, 10**6 + 1))
+    assert sum(1 for p in listed if p % 4 == 3) == 39322
+    assert sum(1 for p in listed if p % 4 == 1) == 39175
+    assert facade.prime_pi_mod(10**6, 4, 3) == 39322
+    assert facade.prime_pi_mod(10**6, 4, 1) == 39175
+
+
+def test_prime_pi_mod_refuses_a_class_that_is_not_coprime():
+    with pytest.raises(InvalidInputError):
+        facade.prime_pi_mod(100, 4, 2)
+    with pytest.raises(InvalidInputError):
+        facade.prime_pi_mod(100, 0, 1)
+
+
+def test_progression_count_with_a_modulus_above_the_interval():
+    assert prime_sums.progression_count_between(10**12 + 39, 97, 0, 1000) == 1
+    assert prime_sums.progression_count_between(10**12 + 39, 98, 0, 1000) == 0
+
+
+def test_prime_pi_mod_role_samples_triples_in_reduced_classes():
+    from math import gcd
+
+    from oracle import sampling
+
+    points = sampling.sample(roles.get("prime_pi_mod"), sampling.profile("quick"), seed=3)
+    assert all(len(s.arguments) == 3 and gcd(s.arguments[2], s.arguments[1]) == 1 for s in points)
+    assert {(q, a) for _, q, a in (s.arguments for s in points)} >= {(1, 0), (4, 5), (65537, 3)}
+    assert max(s.arguments[0] for s in points) > 2**32

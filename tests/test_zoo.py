@@ -43,7 +43,7 @@ CATALOGUE_PATH = TESTS_DIR / "zoo" / "catalogue.yaml"
 ROLES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
          "prev_prime", "primes_in", "factor")
 #: The roles of issue 15, each with at least two defective members and one correct one.
-NEW_ROLES = ("prime_sum", "mertens", "squarefree_count", "triplet_pi_026", "triplet_pi_046",
+NEW_ROLES = ("prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "triplet_pi_026", "triplet_pi_046",
              "quadruplet_pi")
 KINDS = ("wrong_value", "wrong_type", "exception", "hang", "nondeterministic", "crash")
 
@@ -95,8 +95,9 @@ def load_target(entry):
 
 
 def call(function, role, argument):
-    """Call a member with a catalogue input (a list of two integers for primes_in)."""
-    if role == "primes_in":
+    """Call a member with a catalogue input (a list of two integers for primes_in, of
+    three, [x, q, a], for prime_pi_mod)."""
+    if role in ("primes_in", "prime_pi_mod"):
         return function(*argument)
     return function(argument)
 
@@ -211,6 +212,15 @@ def reference_constellations(offsets):
     return count
 
 
+def reference_prime_pi_mod(x: int, q: int, a: int) -> int:
+    """The primes p <= x with p = a (mod q), from the sieve written here."""
+    if x < 2:
+        return 0
+    flags = PRIME_FLAGS if x <= SIEVE_LIMIT else sieve_of_eratosthenes(x)
+    primes = np.flatnonzero(flags[:x + 1])
+    return int(np.count_nonzero(primes % q == a % q))
+
+
 def reference_factor(n: int) -> dict[int, int]:
     """python-flint's factorisation as {prime: exponent}."""
     return {int(p): int(e) for p, e in flint.fmpz(n).factor()}
@@ -226,6 +236,7 @@ REFERENCE = {
     "primes_in": lambda a, b: [int(p) for p in sympy.primerange(a, b + 1)],
     "factor": reference_factor,
     "prime_sum": reference_prime_sum,
+    "prime_pi_mod": reference_prime_pi_mod,
     "mertens": reference_mertens,
     "squarefree_count": reference_squarefree_count,
     "triplet_pi_026": reference_constellations((0, 2, 6)),
@@ -336,6 +347,8 @@ def test_catalogue_entry_is_well_formed(entry):
         assert "witness" in entry
         if entry["role"] == "primes_in":
             assert len(entry["witness"]) == 2
+        if entry["role"] == "prime_pi_mod":
+            assert len(entry["witness"]) == 3
     if "target" in entry:
         module_name, function_name = entry["target"].split(":")
         assert module_name == f"zoo.{entry['id']}"
@@ -407,6 +420,9 @@ POINTS = {
        2**10 * 3**5 * 1000003, (2**31 - 1) ** 2, 600851475143],
     "prime_sum": list(range(-3, 120)) + sample(0, SIEVE_LIMIT, 150)
     + [631, 929, 225286, 225287, 323381, SIEVE_LIMIT],
+    "prime_pi_mod": [(x, q, a) for x in range(-1, 60) for q, a in ((1, 0), (4, 1), (4, 3), (4, 5),
+                                                                   (6, 5), (10, 3), (65537, 3))]
+    + [(x, q, 1) for x in sample(0, SIEVE_LIMIT, 40) for q in (3, 8, 30)],
     "mertens": list(range(-3, 200)) + sample(0, 10**6, 100) + [10**4, 10**5, 10**6],
     "squarefree_count": list(range(-3, 200)) + sample(0, 10**12, 60)
     + [10**8, 100020000, 100020001, 10**12],
@@ -429,6 +445,7 @@ SECOND_REFERENCE = {
     "prime_pi_chatty": lambda x: int(primecountpy.prime_pi(x)) if x >= 2 else 0,
     "factor_sympy": reference_factor,
     "prime_sum_sympy": reference_prime_sum,
+    "prime_pi_mod_sympy": reference_prime_pi_mod,
     "mertens_sympy": reference_mertens,
     "squarefree_count_sympy": reference_squarefree_count,
     "triplet_pi_026_sympy": REFERENCE["triplet_pi_026"],
@@ -441,8 +458,8 @@ def points_for(entry):
     bound = entry.get("max")
     points = POINTS[entry["role"]]
     if bound is not None:
-        if entry["role"] == "primes_in":
-            points = [p for p in points if p[1] <= bound]
+        if entry["role"] in ("primes_in", "prime_pi_mod"):
+            points = [p for p in points if max(p) <= bound]
         else:
             points = [p for p in points if p <= bound]
     if entry["id"] == "prime_pi_line":

@@ -26,7 +26,7 @@ __all__ = ["Profile", "PROFILES", "profile", "HEAVY", "HEAVY_COST", "heavy_cost"
 #: Largest argument below which a typical candidate answers in milliseconds.
 HEAVY = {"prime_pi": 2**30, "twin_pi": 2**30, "nth_prime": 2**25, "primes_in": 2**48}
 #: The sums of issue 15 whose candidates sieve up to x (Q(x) needs only √x: not heavy).
-_SUMS_SIEVED_TO_X = ("prime_sum", "mertens", "triplet_pi_026", "triplet_pi_046", "quadruplet_pi")
+_SUMS_SIEVED_TO_X = ("prime_sum", "prime_pi_mod", "mertens", "triplet_pi_026", "triplet_pi_046", "quadruplet_pi")
 HEAVY.update({name: 2**30 for name in _SUMS_SIEVED_TO_X})
 
 #: How the cost of one heavy call grows with its largest argument m: ``linear`` (a sieve
