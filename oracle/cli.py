@@ -27,6 +27,7 @@ EXIT_INTERRUPTED = 130
 
 VALUE_FUNCTIONS = ("pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
                    "triplets_026", "triplets_046", "quadruplets")
+VALUE_FUNCTIONS += ("prime_sum", "mertens", "squarefree_count")
 BOUND_FUNCTIONS = ("pi", "nth_prime", "twin_pi")
 
 CAUTION = ("Cautions: a 'probable' verdict (Baillie-PSW) is not a proof of primality; "
