@@ -200,3 +200,28 @@ def test_prime_pi_mod_role_samples_triples_in_reduced_classes():
     assert all(len(s.arguments) == 3 and gcd(s.arguments[2], s.arguments[1]) == 1 for s in points)
     assert {(q, a) for _, q, a in (s.arguments for s in points)} >= {(1, 0), (4, 5), (65537, 3)}
     assert max(s.arguments[0] for s in points) > 2**32
+
+
+# OEIS A050258, prime quadruplets with largest member < 10^n, n = 1..10 (8 checked here), read on 2026-12-03 with
+# the project's search tool (10^n is not prime, so "< 10^n" and "<= 10^n" agree).
+QUADRUPLETS_BELOW_POWERS_OF_TEN = [0, 2, 5, 12, 38, 166, 899, 4768, 28388, 180529]
+
+
+def test_quadruplet_counts_agree_with_oeis_a050258():
+    for n, value in enumerate(QUADRUPLETS_BELOW_POWERS_OF_TEN[:8], start=1):
+        assert facade.tuplet_pi("quadruplets", 10**n) == value, n
+
+
+# OEIS A098424, n = 1..103 (its %S, %T, %U data lines, read on 2026-12-03 with the project's search tool):
+# prime triples (p, q, p + 6) of both patterns counted by their smallest member p <= n, so
+# A098424(n) = triplet_pi_026(n + 6) + triplet_pi_046(n + 6) in our convention.
+A098424 = [int(t) for t in (
+    "0,0,0,0,1,1,2,2,2,2,3,3,4,4,4,4,5,5,5,5,5,5,5,5,5,5,5,5,5,5,5,5,5,5,"
+    "5,5,6,6,6,6,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,7,8,8,"
+    "8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,8,9,9,9,9,10,10,11").split(",")]
+
+
+def test_triplet_counts_of_both_patterns_agree_with_oeis_a098424():
+    for n, value in enumerate(A098424, start=1):
+        both = facade.tuplet_pi("triplets_026", n + 6) + facade.tuplet_pi("triplets_046", n + 6)
+        assert both == value, n
