@@ -26,6 +26,10 @@ Routes and their provenance labels (docs/DESIGN.md, "The oracle's promise"):
     a sum over the primes (or over the Möbius function) of [0, x], sieved piece by
     piece and added in Python integers (:mod:`oracle.exact.prime_sums`,
     :mod:`oracle.exact.mobius_sums`), or a difference of such sums over a short interval;
+``combinatorial-sum``
+    the sum of the primes up to x by a Legendre-type recurrence over the values ⌊x/n⌋,
+    run modulo 2⁶⁴ and modulo 2³¹ − 1 and joined by the Chinese remainder theorem
+    (:mod:`oracle.exact.prime_sum_combinatorial`, x ≤ 2⁴⁷);
 ``mobius-identity``
     Q(x) = Σ_{d ≤ √x} μ(d)·⌊x/d²⌋ with μ sieved up to √x (:mod:`oracle.exact.mobius_sums`).
 
@@ -555,6 +559,15 @@ def _summatory(function, arguments, budget) -> Answer:
         arguments = (x, *arguments[1:])
     if x < 1:
         return Answer(function, arguments, 0, "sieve-sum")
+    if function == "prime_sum":
+        from .exact import prime_sum_combinatorial as combinatorial
+
+        budget = _budget(budget)
+        sieve_seconds = _summatory_seconds(function, 0, x)
+        seconds = combinatorial.estimated_seconds(x)
+        if x <= combinatorial.MAX_X and seconds <= budget and (
+                sieve_seconds is None or seconds < sieve_seconds):
+            return Answer(function, arguments, combinatorial.prime_sum(x), "combinatorial-sum")
     found = interval_sum(function, 0, x, *parameters, budget=budget)
     return Answer(function, arguments, found.value, found.provenance)
 

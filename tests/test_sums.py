@@ -9,15 +9,17 @@ import pytest
 import sympy
 
 from oracle import InvalidInputError, OutOfReachError, facade, roles
-from oracle.exact import mobius_sums, prime_sums
+from oracle.exact import mobius_sums, prime_sum_combinatorial, prime_sums
 from oracle.roles import Conventions
 from oracle.roles._sums import KnownSums
 from oracle.sampling import _families
 
-# OEIS A077645, the sum of the primes with n decimal digits, n = 1..7, read on 2026-12-03 with
+# OEIS A077645, the sum of the primes with n decimal digits, n = 1..12, read on 2026-12-03 with
 # the project's search tool (oeis.org/A077645); its partial sums are OEIS A046731, the sum of
 # the primes below 10^n (10^n is not prime, so "below" and "up to" agree).
-N_DIGIT_PRIME_SUMS = [17, 1043, 75067, 5660269, 448660141, 37096005486, 3165774592333]
+N_DIGIT_PRIME_SUMS = [17, 1043, 75067, 5660269, 448660141, 37096005486, 3165774592333,
+                      276006465392920, 24460302301867259, 2196082920489474703,
+                      199246255311162951776, 18234121474806961230363]
 # OEIS A084237, M(10^n) for n = 0..9, read on 2026-12-03 with the project's search tool.
 MERTENS_AT_POWERS_OF_TEN = [1, -1, 1, 2, -23, -48, 212, 1037, 1928, -222]
 # OEIS A071172, Q(10^n) for n = 0..21, read on 2026-12-03 with the project's search tool.
@@ -30,9 +32,27 @@ SQUAREFREE_AT_POWERS_OF_TEN = [
 
 def test_prime_sum_at_powers_of_ten_agrees_with_oeis_a077645_partial_sums():
     total = 0
-    for n, piece in enumerate(N_DIGIT_PRIME_SUMS, start=1):
+    for n, piece in enumerate(N_DIGIT_PRIME_SUMS[:10], start=1):
         total += piece
         assert facade.prime_sum(10**n) == total, n
+        if n >= 6:
+            assert prime_sum_combinatorial.prime_sum(10**n) == total, n
+
+
+@pytest.mark.slow
+def test_combinatorial_prime_sum_at_ten_to_the_11_and_12_agrees_with_oeis_a077645():
+    for n in (11, 12):                           # about 6 s and 30 s
+        assert prime_sum_combinatorial.prime_sum(10**n) == sum(N_DIGIT_PRIME_SUMS[:n]), n
+
+
+def test_combinatorial_prime_sum_agrees_with_the_sieve():
+    rng = random.Random(47)
+    points = list(range(0, 400)) + [p * p + d for p in (97, 1009, 9973) for d in (-1, 0, 1)]
+    points += [rng.randrange(0, 10**8) for _ in range(6)] + [10**8 + 7]
+    for x in points:
+        assert prime_sum_combinatorial.prime_sum(x) == prime_sums.prime_sum_between(0, x), x
+    with pytest.raises(InvalidInputError):
+        prime_sum_combinatorial.prime_sum(2**47 + 1)
 
 
 def test_prime_sum_agrees_with_sympy_at_random_points():
