@@ -172,6 +172,17 @@ def test_prime_sum_words_are_where_the_sum_crosses_each_word_size():
     assert {w: _families.PRIME_SUM_WORDS[w] for w in crossings} == crossings
 
 
+@pytest.mark.slow
+def test_prime_sum_word_53_is_where_the_sum_first_reaches_two_to_the_53():
+    import numpy as np
+    import primesieve
+
+    p = _families.PRIME_SUM_WORDS[53]
+    listed = np.array(primesieve.primes(p), dtype=np.uint64)      # the last one is p itself
+    below = int(np.sum(listed[:-1], dtype=np.uint64))              # < 2**64: exact in uint64
+    assert int(listed[-1]) == p and below < 2**53 <= below + p
+
+
 def test_bad_progression_and_summatory_arguments_are_refused():
     with pytest.raises(InvalidInputError):
         facade.interval_sum("pi", 0, 10)
