@@ -31,7 +31,16 @@ Routes and their provenance labels (docs/DESIGN.md, "The oracle's promise"):
     run modulo 2⁶⁴ and modulo 2³¹ − 1 and joined by the Chinese remainder theorem
     (:mod:`oracle.exact.prime_sum_combinatorial`, x ≤ 2⁴⁷);
 ``mobius-identity``
-    Q(x) = Σ_{d ≤ √x} μ(d)·⌊x/d²⌋ with μ sieved up to √x (:mod:`oracle.exact.mobius_sums`).
+    Q(x) = Σ_{d ≤ √x} μ(d)·⌊x/d²⌋ with μ sieved up to √x
+    (:mod:`oracle.exact.mobius_sums`).
+``factorised+deterministic`` / ``factorised+probable``
+    a factorisation found by trial division and Brent's rho within the budget
+    (:mod:`oracle.exact.factorisation`), each prime factor proven or probable as
+    above; μ, φ, d and σ are computed from it;
+``constructed: certified factors``
+    n was built from primes with Pocklington certificates and registered by
+    the sampling family that built it (:mod:`oracle.adversarial._constructed`):
+    its factorisation is proven at any size.
 
 Answers that took long to compute are kept on disk between runs
 (:mod:`oracle._store`); every route below passes through :func:`_kept`, the one
@@ -58,6 +67,7 @@ __all__ = [
     "pi", "twin_pi", "tuplet_pi", "count", "nth_prime", "is_prime",
     "next_prime", "prev_prime", "primes", "verify_factorization", "answer",
     "prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "interval_sum",
+    "factorization", "mobius", "totient", "divisor_count", "divisor_sum", "MULTIPLICATIVE",
     "FUNCTIONS", "TUPLET_KINDS", "DEFAULT_BUDGET_SECONDS",
 ]
 
@@ -76,6 +86,8 @@ PRIMES_MAX_COUNT = 5 * 10**7
 # core of this machine counts the primes below 10**10 in about 0.5 s; our numpy
 # engine is slower).  Used only to choose a route and to refuse early.
 _SIEVE_SECONDS_PER_INTEGER = {"primesieve": 6e-11, "numpy": 6e-10}
+# The numpy engine on a short interval high up: small-prime sieve, survivors proven.
+_NUMPY_PROOF_SECONDS_PER_INTEGER = 3e-7
 # Beyond 2**64 a short interval is sieved by small primes and every survivor
 # is tested with Baillie-PSW; this caps the interval length.
 _SIEVE_MAX_SPAN_BEYOND_64 = 10**8
@@ -279,6 +291,85 @@ def verify_factorization(n: int, factors) -> FactorizationReport:
 
 
 # --------------------------------------------------------------------------- #
+# Factorisation and the multiplicative functions
+# --------------------------------------------------------------------------- #
+
+def factorization(n: int, *, budget: float | None = None) -> dict[int, int]:
+    """The prime factorisation {p: e} of n ≥ 1 ({} for 1), or :class:`OutOfReachError`."""
+    return dict(_factorization(n, budget)[0])
+
+
+def mobius(n: int, *, budget: float | None = None) -> int:
+    """μ(n) for n ≥ 1: 0 if a square > 1 divides n, else (−1)^(number of prime factors)."""
+    return _multiplicative("mobius", n, budget).value
+
+
+def totient(n: int, *, budget: float | None = None) -> int:
+    """φ(n) for n ≥ 1: how many k in [1, n] have gcd(k, n) = 1 (φ(1) = 1)."""
+    return _multiplicative("totient", n, budget).value
+
+
+def divisor_count(n: int, *, budget: float | None = None) -> int:
+    """d(n) = σ₀(n) for n ≥ 1: the number of positive divisors (d(1) = 1)."""
+    return _multiplicative("divisor_count", n, budget).value
+
+
+def divisor_sum(n: int, *, budget: float | None = None) -> int:
+    """σ(n) = σ₁(n) for n ≥ 1: the sum of the positive divisors (σ(1) = 1)."""
+    return _multiplicative("divisor_sum", n, budget).value
+
+
+def _mobius_of(pairs) -> int:
+    return 0 if any(e > 1 for _, e in pairs) else (-1) ** len(pairs)
+
+
+def _totient_of(pairs) -> int:
+    return math.prod(p ** (e - 1) * (p - 1) for p, e in pairs)
+
+
+def _divisor_count_of(pairs) -> int:
+    return math.prod(e + 1 for _, e in pairs)
+
+
+def _divisor_sum_of(pairs) -> int:
+    return math.prod((p ** (e + 1) - 1) // (p - 1) for p, e in pairs)
+
+
+#: The multiplicative functions, each from the (p, e) pairs of n (Hardy & Wright, ch. XVI).
+MULTIPLICATIVE = {"mobius": _mobius_of, "totient": _totient_of,
+                  "divisor_count": _divisor_count_of, "divisor_sum": _divisor_sum_of}
+
+#: Provenance of a factorisation known from its construction.
+CONSTRUCTED = "constructed: certified factors"
+
+
+def _factorization(n, budget) -> tuple[list[tuple[int, int]], str]:
+    """The sorted (p, e) pairs of n and their provenance: the construction when n was
+    registered, else trial division and Brent's rho within the budget."""
+    n = require_int("n", n, minimum=1)
+    budget = _budget(budget)
+    from .adversarial import _constructed
+
+    built = _constructed.known(n)
+    if built is not None:
+        return sorted(built.factorisation.items()), CONSTRUCTED
+    from .exact import factorisation
+
+    try:
+        found, verdict = factorisation.factorise(n, budget)
+    except factorisation.TooSlow as error:
+        raise OutOfReachError(f"factorization({n}): {error} ({budget:g} s)") from None
+    return sorted(found.items()), f"factorised+{verdict}"
+
+
+def _multiplicative(function: str, n, budget) -> Answer:
+    pairs, provenance = _factorization(n, budget)
+    if function == "factorization":
+        return Answer(function, (n,), [list(pair) for pair in pairs], provenance)
+    return Answer(function, (n,), MULTIPLICATIVE[function](pairs), provenance)
+
+
+# --------------------------------------------------------------------------- #
 # The companion call
 # --------------------------------------------------------------------------- #
 
@@ -288,6 +379,7 @@ FUNCTIONS = {
     "prev_prime": 1, "triplets_026": 1, "triplets_046": 1, "quadruplets": 1,
     "count": 3, "primes": 2,
     "prime_sum": 1, "prime_pi_mod": 3, "mertens": 1, "squarefree_count": 1,
+    "factorization": 1, "mobius": 1, "totient": 1, "divisor_count": 1, "divisor_sum": 1,
 }
 
 #: Functions that are sums over [0, x] of a term, with :func:`interval_sum` for any [a, b].
@@ -327,6 +419,8 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
         return _summatory(function, arguments, budget)
     if function == "squarefree_count":
         return _squarefree_count(arguments[0], budget)
+    if function == "factorization" or function in MULTIPLICATIVE:
+        return _multiplicative(function, arguments[0], budget)
     kind, a, b = arguments
     return _count(_check_kind(kind), a, b, budget)
 
@@ -683,8 +777,12 @@ def _sieve_seconds(a: int, b: int) -> float | None:
     from .exact import sieve
 
     engine = "primesieve" if sieve.active_engine().startswith("primesieve") else "numpy"
-    # Sieving also needs the primes up to sqrt(b).
-    return (length + math.isqrt(b)) * _SIEVE_SECONDS_PER_INTEGER[engine]
+    # Sieving also needs the primes up to sqrt(b) -- except that the numpy engine
+    # proves the survivors of a small-prime sieve instead on a short interval high up.
+    seconds = (length + math.isqrt(b)) * _SIEVE_SECONDS_PER_INTEGER[engine]
+    if engine == "numpy":
+        seconds = min(seconds, length * _NUMPY_PROOF_SECONDS_PER_INTEGER)
+    return seconds
 
 
 def _sieve_count(kind: str, a: int, b: int) -> tuple[int, str]:

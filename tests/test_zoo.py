@@ -43,8 +43,11 @@ CATALOGUE_PATH = TESTS_DIR / "zoo" / "catalogue.yaml"
 ROLES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
          "prev_prime", "primes_in", "factor")
 #: The roles of issue 15, each with at least two defective members and one correct one.
-NEW_ROLES = ("prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "triplet_pi_026", "triplet_pi_046",
-             "quadruplet_pi")
+NEW_ROLES = ("prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "triplet_pi_026",
+             "triplet_pi_046", "quadruplet_pi")
+#: The arithmetic-function roles (issue 15): at least two defective members each.
+ARITHMETIC_ROLES = ("mobius", "totient", "divisor_count", "divisor_sum")
+ROLES += ARITHMETIC_ROLES
 KINDS = ("wrong_value", "wrong_type", "exception", "hang", "nondeterministic", "crash")
 
 if str(TESTS_DIR) not in sys.path:
@@ -242,6 +245,11 @@ REFERENCE = {
     "triplet_pi_026": reference_constellations((0, 2, 6)),
     "triplet_pi_046": reference_constellations((0, 4, 6)),
     "quadruplet_pi": reference_constellations((0, 2, 6, 8)),
+    # python-flint's arithmetic functions (it factors n itself)
+    "mobius": lambda n: int(flint.fmpz(n).moebius_mu()),
+    "totient": lambda n: int(flint.fmpz(n).euler_phi()),
+    "divisor_count": lambda n: int(flint.fmpz(n).divisor_sigma(0)),
+    "divisor_sum": lambda n: int(flint.fmpz(n).divisor_sigma(1)),
 }
 
 
@@ -365,7 +373,7 @@ def test_catalogue_covers_every_role():
     defective = collections.Counter(e["role"] for e in CATALOGUE if e["defective"])
     correct = collections.Counter(e["role"] for e in CATALOGUE if not e["defective"])
     for role in ROLES:
-        assert defective[role] >= 4, role
+        assert defective[role] >= (2 if role in ARITHMETIC_ROLES else 4), role
         assert correct[role] >= 1, role
     for role in {e["role"] for e in CATALOGUE} & set(NEW_ROLES):
         assert defective[role] >= 2 and correct[role] >= 1, role
@@ -429,6 +437,13 @@ POINTS = {
     **{role: list(range(-3, 200)) + sample(0, SIEVE_LIMIT, 100) + [SIEVE_LIMIT]
        for role in ("triplet_pi_026", "triplet_pi_046", "quadruplet_pi")},
 }
+# The arithmetic functions: small n, random n up to 2**64 and word-size shapes (squares,
+# prime powers, smooth numbers, sigma(n) near 2**64).
+_ARITHMETIC_POINTS = (list(range(1, 400)) + sample(1, 2**64, 60)
+                      + [2**32 + 1, 2**63, 3 * 2**62, 2**64 - 1, 2**64 + 1, 1009**2,
+                         1009 * 1013, 1018081 * 1013, 2**5 * 3**3 * 5 * 7**2 * 11 * 13,
+                         (2**31 - 1) ** 2, 2**60 + 3, 3**40, 600851475143])
+POINTS.update({role: _ARITHMETIC_POINTS for role in ARITHMETIC_ROLES})
 
 # A second reference for each correct member, never the library the member is built on.
 SECOND_REFERENCE = {
@@ -451,6 +466,10 @@ SECOND_REFERENCE = {
     "triplet_pi_026_sympy": REFERENCE["triplet_pi_026"],
     "triplet_pi_046_sympy": REFERENCE["triplet_pi_046"],
     "quadruplet_pi_sympy": REFERENCE["quadruplet_pi"],
+    "mobius_sympy": REFERENCE["mobius"],
+    "totient_sympy": REFERENCE["totient"],
+    "divisor_count_sympy": REFERENCE["divisor_count"],
+    "divisor_sum_sympy": REFERENCE["divisor_sum"],
 }
 
 

@@ -19,6 +19,7 @@ from . import (factor, is_prime, next_prime, nth_prime, prev_prime, prime_pi, pr
                twin_pi)
 from . import (mertens, prime_pi_mod, prime_sum, quadruplet_pi, squarefree_count,
                triplet_pi_026, triplet_pi_046)
+from . import divisor_count, divisor_sum, mobius, totient
 
 __all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES", "get", "infer"]
 
@@ -29,6 +30,8 @@ ROLES: dict[str, Role] = {module.ROLE.name: module.ROLE for module in (
 ROLES.update({module.ROLE.name: module.ROLE for module in (
     prime_sum, prime_pi_mod, mertens, squarefree_count, triplet_pi_026, triplet_pi_046,
     quadruplet_pi)})
+ROLES.update({module.ROLE.name: module.ROLE for module in (
+    mobius, totient, divisor_count, divisor_sum)})
 
 # Other names real libraries give the same function (used only to infer a role).
 _ALIASES = {
@@ -44,6 +47,9 @@ _ALIASES = {
     "mertens_function": "mertens", "count_squarefree": "squarefree_count",
     "squarefree_pi": "squarefree_count", "primepi_mod": "prime_pi_mod",
     "primes_in_progression": "prime_pi_mod", "count_primes_mod": "prime_pi_mod",
+    "moebius": "mobius", "mu": "mobius", "phi": "totient", "euler_phi": "totient",
+    "divisors_count": "divisor_count", "num_divisors": "divisor_count", "tau": "divisor_count",
+    "sigma": "divisor_sum", "divisor_sigma": "divisor_sum", "sum_of_divisors": "divisor_sum",
 }
 
 

@@ -139,8 +139,9 @@ def sum_relations(function: str, *, monotone: bool):
             points.sort()
             for (x0, v0, a0), (x1, v1, a1) in zip(points, points[1:]):
                 if monotone and v1 < v0:
+                    detail = f"{function}{a1} = {v1} < {function}{a0} = {v0}"
                     found.append((a1, v1, Verdict("monotone", False, (v0, None), "definition",
-                                                  f"{function}{a1} = {v1} < {function}{a0} = {v0}")))
+                                                  detail)))
                     continue
                 beyond = any(not verdicts[a].reach for a in (a0, a1) if a in verdicts)
                 if not beyond or x1 - x0 > DIFFERENCE_LIMIT or x0 < 0:
