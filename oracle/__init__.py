@@ -35,6 +35,7 @@ from .facade import (
     twin_pi,
     verify_factorization,
 )
+from .facade import mertens, prime_pi_mod, prime_sum, squarefree_count
 
 __version__ = "0.1.0"
 
@@ -42,6 +43,7 @@ __all__ = [
     "Answer", "FactorizationReport", "InvalidInputError", "OracleError", "OutOfReachError",
     "answer", "count", "is_prime", "next_prime", "nth_prime", "pi", "prev_prime", "primes",
     "tuplet_pi", "twin_pi", "verify_factorization", "bounds", "tables",
+    "prime_sum", "prime_pi_mod", "mertens", "squarefree_count",
 ]
 
 _LAZY_SUBMODULES = ("bounds", "tables")

@@ -27,6 +27,7 @@ EXIT_INTERRUPTED = 130
 
 VALUE_FUNCTIONS = ("pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
                    "triplets_026", "triplets_046", "quadruplets")
+VALUE_FUNCTIONS += ("prime_sum", "mertens", "squarefree_count")
 VALUE_FUNCTIONS += ("mobius", "totient", "divisor_count", "divisor_sum")
 BOUND_FUNCTIONS = ("pi", "nth_prime", "twin_pi")
 
@@ -105,6 +106,9 @@ _NO_STORE_HELP = ("neither read nor keep answers in the on-disk store of slow an
 
 ROLE_NAMES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
               "primes_in", "factor")
+ROLE_NAMES += ("prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "triplet_pi_026",
+               "triplet_pi_046", "quadruplet_pi")
+ROLE_NAMES += ("mobius", "totient", "divisor_count", "divisor_sum")
 PROFILE_NAMES = ("quick", "ci", "deep", "exhaustive")
 
 

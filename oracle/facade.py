@@ -21,7 +21,18 @@ Routes and their provenance labels (docs/DESIGN.md, "The oracle's promise"):
     Miller–Rabin with a base set proven sufficient below a published bound;
 ``probable``
     Baillie–PSW above that bound: no counterexample is known, none is proven
-    impossible.  A probable prime is not a proven prime.
+    impossible.  A probable prime is not a proven prime;
+``sieve-sum``
+    a sum over the primes (or over the Möbius function) of [0, x], sieved piece by
+    piece and added in Python integers (:mod:`oracle.exact.prime_sums`,
+    :mod:`oracle.exact.mobius_sums`), or a difference of such sums over a short interval;
+``combinatorial-sum``
+    the sum of the primes up to x by a Legendre-type recurrence over the values ⌊x/n⌋,
+    run modulo 2⁶⁴ and modulo 2³¹ − 1 and joined by the Chinese remainder theorem
+    (:mod:`oracle.exact.prime_sum_combinatorial`, x ≤ 2⁴⁷);
+``mobius-identity``
+    Q(x) = Σ_{d ≤ √x} μ(d)·⌊x/d²⌋ with μ sieved up to √x
+    (:mod:`oracle.exact.mobius_sums`).
 ``factorised+deterministic`` / ``factorised+probable``
     a factorisation found by trial division and Brent's rho within the budget
     (:mod:`oracle.exact.factorisation`), each prime factor proven or probable as
@@ -55,6 +66,7 @@ __all__ = [
     "Answer", "FactorizationReport",
     "pi", "twin_pi", "tuplet_pi", "count", "nth_prime", "is_prime",
     "next_prime", "prev_prime", "primes", "verify_factorization", "answer",
+    "prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "interval_sum",
     "factorization", "mobius", "totient", "divisor_count", "divisor_sum", "MULTIPLICATIVE",
     "FUNCTIONS", "TUPLET_KINDS", "DEFAULT_BUDGET_SECONDS",
 ]
@@ -167,6 +179,61 @@ def count(kind: str, a: int, b: int, *, budget: float | None = None) -> int:
 def nth_prime(n: int, *, budget: float | None = None, progress=None) -> int:
     """p_n, the n-th prime: nth_prime(1) = 2 (``progress`` as for :func:`pi`)."""
     return _nth_prime(n, budget, progress).value
+
+
+def prime_sum(x: int, *, budget: float | None = None) -> int:
+    """Σ p over the primes p ≤ x (0 for x < 2), exact (OEIS A046731 at x = 10ⁿ)."""
+    return _summatory("prime_sum", (x,), budget).value
+
+
+def prime_pi_mod(x: int, q: int, a: int, *, budget: float | None = None) -> int:
+    """π(x; q, a), the number of primes p ≤ x with p ≡ a (mod q); q ≥ 1, gcd(a, q) = 1."""
+    return _summatory("prime_pi_mod", (x, q, a), budget).value
+
+
+def mertens(x: int, *, budget: float | None = None) -> int:
+    """M(x) = Σ_{n ≤ x} μ(n) (0 for x < 1; OEIS A002321, A084237 at x = 10ⁿ)."""
+    return _summatory("mertens", (x,), budget).value
+
+
+def squarefree_count(x: int, *, budget: float | None = None) -> int:
+    """Q(x), the number of squarefree n with 1 ≤ n ≤ x (OEIS A013928, A071172 at 10ⁿ)."""
+    return _squarefree_count(x, budget).value
+
+
+def interval_sum(function: str, low: int, high: int, *parameters: int,
+                 budget: float | None = None) -> Answer:
+    """f(high) − f(low − 1) for a summatory ``function`` of :data:`SUMMATORY`: the sum of
+    its terms over the n with low ≤ n ≤ high (``parameters``: q, a for ``prime_pi_mod``)."""
+    if function not in SUMMATORY:
+        raise InvalidInputError(f"function={function!r}: expected one of {', '.join(SUMMATORY)}")
+    low = require_int("low", low, minimum=0)
+    high = require_int("high", high)
+    budget = _budget(budget)
+    arguments = (low, high, *parameters)
+    if (function == "prime_pi_mod") != bool(parameters) or len(parameters) not in (0, 2):
+        raise InvalidInputError(f"{function}: expected the parameters q, a for prime_pi_mod "
+                                "and none otherwise")
+    if function == "prime_pi_mod":
+        q, a = _progression(*parameters)
+    if high < low:
+        return Answer(function, arguments, 0, "sieve-sum")
+    seconds = _summatory_seconds(function, low, high)
+    if seconds is None or seconds > budget:
+        raise OutOfReachError(
+            f"{function} over [{low}, {high}]: the sieve needs "
+            + (f"about {seconds:.3g} s, over the budget of {budget:g} s" if seconds is not None
+               else "an interval below 2**64"))
+    if function == "prime_sum":
+        from .exact.prime_sums import prime_sum_between
+        value = prime_sum_between(low, high)
+    elif function == "prime_pi_mod":
+        from .exact.prime_sums import progression_count_between
+        value = progression_count_between(q, a, low, high)
+    else:
+        from .exact.mobius_sums import mobius_sum_between
+        value = mobius_sum_between(low, high)
+    return Answer(function, arguments, value, "sieve-sum")
 
 
 # --------------------------------------------------------------------------- #
@@ -311,8 +378,12 @@ FUNCTIONS = {
     "pi": 1, "twin_pi": 1, "nth_prime": 1, "is_prime": 1, "next_prime": 1,
     "prev_prime": 1, "triplets_026": 1, "triplets_046": 1, "quadruplets": 1,
     "count": 3, "primes": 2,
+    "prime_sum": 1, "prime_pi_mod": 3, "mertens": 1, "squarefree_count": 1,
     "factorization": 1, "mobius": 1, "totient": 1, "divisor_count": 1, "divisor_sum": 1,
 }
+
+#: Functions that are sums over [0, x] of a term, with :func:`interval_sum` for any [a, b].
+SUMMATORY = ("prime_sum", "prime_pi_mod", "mertens")
 
 
 def answer(function: str, *arguments, budget: float | None = None, progress=None) -> Answer:
@@ -344,6 +415,10 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
         return _next_prime(arguments[0])
     if function == "prev_prime":
         return _prev_prime(arguments[0])
+    if function in SUMMATORY:
+        return _summatory(function, arguments, budget)
+    if function == "squarefree_count":
+        return _squarefree_count(arguments[0], budget)
     if function == "factorization" or function in MULTIPLICATIVE:
         return _multiplicative(function, arguments[0], budget)
     kind, a, b = arguments
@@ -543,6 +618,69 @@ def _primes_by_testing_each(a: int, b: int) -> tuple[list[int], str]:
     found = [n for n in range(max(a, 2), b + 1) if primality.is_prime(n)]
     probable = bool(found) and primality.verdict(found[-1]) == "probable"
     return found, "probable" if probable else "deterministic"
+
+
+#: Seconds per integer of the sums over primes (listing the primes costs more than
+#: counting them) and of the Möbius sieve (numpy, one pass per sieving prime).
+_PRIME_SUM_SECONDS_PER_INTEGER = 5e-9
+_MOBIUS_SECONDS_PER_INTEGER = 8e-8
+#: Q(x) by the Möbius identity needs x below 2**63 (numpy int64 quotients).
+_SQUAREFREE_LIMIT = 2**63
+
+
+def _progression(q, a) -> tuple[int, int]:
+    """(q, a) checked: q ≥ 1, 0 ≤ a < q (any a is reduced) and gcd(a, q) = 1."""
+    q = require_int("q", q, minimum=1)
+    a = require_int("a", a)
+    if math.gcd(a, q) != 1:
+        raise InvalidInputError(f"a={a}, q={q}: gcd(a, q) = {math.gcd(a, q)}, expected 1")
+    return q, a % q
+
+
+def _summatory_seconds(function: str, low: int, high: int) -> float | None:
+    if high >= _TWO_64:
+        return None
+    rate = _MOBIUS_SECONDS_PER_INTEGER if function == "mertens" else _PRIME_SUM_SECONDS_PER_INTEGER
+    return (high - low + 1 + math.isqrt(high)) * rate
+
+
+@_kept(lambda function, arguments, budget=None: (function, tuple(arguments)))
+def _summatory(function, arguments, budget) -> Answer:
+    x = require_int("x", arguments[0])
+    parameters = ()
+    if function == "prime_pi_mod":
+        parameters = _progression(*arguments[1:])
+        arguments = (x, *arguments[1:])
+    if x < 1:
+        return Answer(function, arguments, 0, "sieve-sum")
+    if function == "prime_sum":
+        from .exact import prime_sum_combinatorial as combinatorial
+
+        budget = _budget(budget)
+        sieve_seconds = _summatory_seconds(function, 0, x)
+        seconds = combinatorial.estimated_seconds(x)
+        if x <= combinatorial.MAX_X and seconds <= budget and (
+                sieve_seconds is None or seconds < sieve_seconds):
+            return Answer(function, arguments, combinatorial.prime_sum(x), "combinatorial-sum")
+    found = interval_sum(function, 0, x, *parameters, budget=budget)
+    return Answer(function, arguments, found.value, found.provenance)
+
+
+@_kept(lambda x, budget=None: ("squarefree_count", (x,)))
+def _squarefree_count(x, budget) -> Answer:
+    x = require_int("x", x)
+    budget = _budget(budget)
+    if x < 1:
+        return Answer("squarefree_count", (x,), 0, "mobius-identity")
+    seconds = (math.isqrt(x) + 1) * _MOBIUS_SECONDS_PER_INTEGER
+    if x >= _SQUAREFREE_LIMIT or seconds > budget:
+        raise OutOfReachError(
+            f"squarefree_count({x}): the Möbius identity needs "
+            + (f"about {seconds:.3g} s, over the budget of {budget:g} s" if x < _SQUAREFREE_LIMIT
+               else "x below 2**63"))
+    from .exact.mobius_sums import squarefree_count as count_squarefree
+
+    return Answer("squarefree_count", (x,), count_squarefree(x), "mobius-identity")
 
 
 # --------------------------------------------------------------------------- #

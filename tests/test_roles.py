@@ -21,6 +21,11 @@ def test_registry_has_the_eight_roles_of_the_design():
     assert set(roles.ROLES) >= {"mobius", "totient", "divisor_count", "divisor_sum"}   # issue 15
 
 
+def test_registry_has_the_sums_of_issue_15():
+    assert set(roles.ROLES) >= {"prime_sum", "mertens", "squarefree_count", "triplet_pi_026",
+                                "triplet_pi_046", "quadruplet_pi"}
+
+
 @pytest.mark.parametrize("name, role", [("prime_pi", "prime_pi"), ("my_prime_pi", "prime_pi"),
                                         ("my_twin_pi", "twin_pi"), ("primepi", "prime_pi"),
                                         ("factorint", "factor"), ("fast_is_prime", "is_prime"),

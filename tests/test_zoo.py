@@ -42,6 +42,9 @@ REPOSITORY_ROOT = TESTS_DIR.parent
 CATALOGUE_PATH = TESTS_DIR / "zoo" / "catalogue.yaml"
 ROLES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
          "prev_prime", "primes_in", "factor")
+#: The roles of issue 15, each with at least two defective members and one correct one.
+NEW_ROLES = ("prime_sum", "prime_pi_mod", "mertens", "squarefree_count", "triplet_pi_026",
+             "triplet_pi_046", "quadruplet_pi")
 #: The arithmetic-function roles (issue 15): at least two defective members each.
 ARITHMETIC_ROLES = ("mobius", "totient", "divisor_count", "divisor_sum")
 ROLES += ARITHMETIC_ROLES
@@ -95,8 +98,9 @@ def load_target(entry):
 
 
 def call(function, role, argument):
-    """Call a member with a catalogue input (a list of two integers for primes_in)."""
-    if role == "primes_in":
+    """Call a member with a catalogue input (a list of two integers for primes_in, of
+    three, [x, q, a], for prime_pi_mod)."""
+    if role in ("primes_in", "prime_pi_mod"):
         return function(*argument)
     return function(argument)
 
@@ -139,6 +143,87 @@ def reference_twin_pi(x: int) -> int:
     raise AssertionError(f"twin_pi reference sieve ends at {LARGE_SIEVE_LIMIT}, asked {x}")
 
 
+def _cumulative_prime_sums(limit: int) -> np.ndarray:
+    """sums[x] = the sum of the primes p <= x, for x <= limit (int64: exact below 2**63)."""
+    flags = PRIME_FLAGS[:limit + 1] if limit <= SIEVE_LIMIT else sieve_of_eratosthenes(limit)
+    return np.cumsum(np.where(flags, np.arange(limit + 1, dtype=np.int64), 0))
+
+
+PRIME_SUMS = _cumulative_prime_sums(SIEVE_LIMIT)
+
+
+def reference_prime_sum(x: int) -> int:
+    """The sum of the primes p <= x from the sieve written here."""
+    if x < 2:
+        return 0
+    if x <= SIEVE_LIMIT:
+        return int(PRIME_SUMS[x])
+    if x <= LARGE_SIEVE_LIMIT:
+        return int(_cumulative_prime_sums(x)[-1])
+    raise AssertionError(f"prime_sum reference sieve ends at {LARGE_SIEVE_LIMIT}, asked {x}")
+
+
+def _mobius_by_sieve(limit: int) -> np.ndarray:
+    """mu[n] for 0 <= n <= limit (mu[0] = 0), by a Moebius sieve written here."""
+    mu = np.ones(limit + 1, dtype=np.int64)
+    rest = np.arange(limit + 1, dtype=np.int64)
+    for p in np.flatnonzero(sieve_of_eratosthenes(math.isqrt(limit))).tolist():
+        mu[p::p] *= -1
+        rest[p::p] //= p
+        mu[p * p::p * p] = 0
+    mu[rest > 1] *= -1
+    mu[0] = 0
+    return mu
+
+
+MERTENS = np.cumsum(_mobius_by_sieve(SIEVE_LIMIT))
+
+
+def reference_mertens(x: int) -> int:
+    if x < 1:
+        return 0
+    if x <= SIEVE_LIMIT:
+        return int(MERTENS[x])
+    return int(np.sum(_mobius_by_sieve(x)))
+
+
+def reference_squarefree_count(x: int) -> int:
+    """Q(x) = sum of mu(d) * (x // d^2) over d <= sqrt(x), mu from the sieve written here."""
+    if x < 1:
+        return 0
+    root = math.isqrt(x)
+    mu = _mobius_by_sieve(root).tolist()
+    return sum(mu[d] * (x // (d * d)) for d in range(1, root + 1) if mu[d])
+
+
+def reference_constellations(offsets):
+    """The number of constellations p + offsets, all prime, with p + offsets[-1] <= x."""
+    span = offsets[-1]
+    last = np.zeros(SIEVE_LIMIT + 1, dtype=np.int64)
+    ok = np.ones(SIEVE_LIMIT + 1 - span, dtype=bool)
+    for d in offsets:
+        ok &= PRIME_FLAGS[d:SIEVE_LIMIT + 1 - span + d]
+    last[span:] = ok
+    counts = np.cumsum(last)
+
+    def count(x: int) -> int:
+        if x < 0:
+            return 0
+        if x > SIEVE_LIMIT:
+            raise AssertionError(f"constellation reference ends at {SIEVE_LIMIT}, asked {x}")
+        return int(counts[x])
+    return count
+
+
+def reference_prime_pi_mod(x: int, q: int, a: int) -> int:
+    """The primes p <= x with p = a (mod q), from the sieve written here."""
+    if x < 2:
+        return 0
+    flags = PRIME_FLAGS if x <= SIEVE_LIMIT else sieve_of_eratosthenes(x)
+    primes = np.flatnonzero(flags[:x + 1])
+    return int(np.count_nonzero(primes % q == a % q))
+
+
 def reference_factor(n: int) -> dict[int, int]:
     """python-flint's factorisation as {prime: exponent}."""
     return {int(p): int(e) for p, e in flint.fmpz(n).factor()}
@@ -153,6 +238,13 @@ REFERENCE = {
     "prev_prime": lambda n: int(gmpy2.prev_prime(n)),
     "primes_in": lambda a, b: [int(p) for p in sympy.primerange(a, b + 1)],
     "factor": reference_factor,
+    "prime_sum": reference_prime_sum,
+    "prime_pi_mod": reference_prime_pi_mod,
+    "mertens": reference_mertens,
+    "squarefree_count": reference_squarefree_count,
+    "triplet_pi_026": reference_constellations((0, 2, 6)),
+    "triplet_pi_046": reference_constellations((0, 4, 6)),
+    "quadruplet_pi": reference_constellations((0, 2, 6, 8)),
     # python-flint's arithmetic functions (it factors n itself)
     "mobius": lambda n: int(flint.fmpz(n).moebius_mu()),
     "totient": lambda n: int(flint.fmpz(n).euler_phi()),
@@ -252,7 +344,7 @@ def test_catalogue_ids_are_unique():
 
 @pytest.mark.parametrize("entry", [pytest.param(e, id=e["id"]) for e in CATALOGUE])
 def test_catalogue_entry_is_well_formed(entry):
-    assert entry["role"] in ROLES
+    assert entry["role"] in ROLES + NEW_ROLES
     assert ("target" in entry) != ("exec" in entry), "exactly one of target / exec"
     assert isinstance(entry["defective"], bool)
     if "max" in entry:
@@ -263,6 +355,8 @@ def test_catalogue_entry_is_well_formed(entry):
         assert "witness" in entry
         if entry["role"] == "primes_in":
             assert len(entry["witness"]) == 2
+        if entry["role"] == "prime_pi_mod":
+            assert len(entry["witness"]) == 3
     if "target" in entry:
         module_name, function_name = entry["target"].split(":")
         assert module_name == f"zoo.{entry['id']}"
@@ -281,6 +375,8 @@ def test_catalogue_covers_every_role():
     for role in ROLES:
         assert defective[role] >= (2 if role in ARITHMETIC_ROLES else 4), role
         assert correct[role] >= 1, role
+    for role in {e["role"] for e in CATALOGUE} & set(NEW_ROLES):
+        assert defective[role] >= 2 and correct[role] >= 1, role
     executables = [e for e in CATALOGUE if "exec" in e]
     assert sum(not e["defective"] for e in executables) >= 2
     assert {e["kind"] for e in executables if e["defective"]} >= {"wrong_value", "crash"}
@@ -330,6 +426,16 @@ POINTS = {
     "factor": list(range(1, 300)) + sample(1, 10**15, 100)
     + [2**32 + 1, 2**64 - 1, 2**64 + 1, 1009**2, 1009 * 1013 * 1019, 42799, 3215031751,
        2**10 * 3**5 * 1000003, (2**31 - 1) ** 2, 600851475143],
+    "prime_sum": list(range(-3, 120)) + sample(0, SIEVE_LIMIT, 150)
+    + [631, 929, 225286, 225287, 323381, SIEVE_LIMIT],
+    "prime_pi_mod": [(x, q, a) for x in range(-1, 60) for q, a in ((1, 0), (4, 1), (4, 3), (4, 5),
+                                                                   (6, 5), (10, 3), (65537, 3))]
+    + [(x, q, 1) for x in sample(0, SIEVE_LIMIT, 40) for q in (3, 8, 30)],
+    "mertens": list(range(-3, 200)) + sample(0, 10**6, 100) + [10**4, 10**5, 10**6],
+    "squarefree_count": list(range(-3, 200)) + sample(0, 10**12, 60)
+    + [10**8, 100020000, 100020001, 10**12],
+    **{role: list(range(-3, 200)) + sample(0, SIEVE_LIMIT, 100) + [SIEVE_LIMIT]
+       for role in ("triplet_pi_026", "triplet_pi_046", "quadruplet_pi")},
 }
 # The arithmetic functions: small n, random n up to 2**64 and word-size shapes (squares,
 # prime powers, smooth numbers, sigma(n) near 2**64).
@@ -353,6 +459,13 @@ SECOND_REFERENCE = {
     "primes_in_primesieve": lambda a, b: [int(p) for p in sympy.primerange(a, b + 1)],
     "prime_pi_chatty": lambda x: int(primecountpy.prime_pi(x)) if x >= 2 else 0,
     "factor_sympy": reference_factor,
+    "prime_sum_sympy": reference_prime_sum,
+    "prime_pi_mod_sympy": reference_prime_pi_mod,
+    "mertens_sympy": reference_mertens,
+    "squarefree_count_sympy": reference_squarefree_count,
+    "triplet_pi_026_sympy": REFERENCE["triplet_pi_026"],
+    "triplet_pi_046_sympy": REFERENCE["triplet_pi_046"],
+    "quadruplet_pi_sympy": REFERENCE["quadruplet_pi"],
     "mobius_sympy": REFERENCE["mobius"],
     "totient_sympy": REFERENCE["totient"],
     "divisor_count_sympy": REFERENCE["divisor_count"],
@@ -364,8 +477,8 @@ def points_for(entry):
     bound = entry.get("max")
     points = POINTS[entry["role"]]
     if bound is not None:
-        if entry["role"] == "primes_in":
-            points = [p for p in points if p[1] <= bound]
+        if entry["role"] in ("primes_in", "prime_pi_mod"):
+            points = [p for p in points if max(p) <= bound]
         else:
             points = [p for p in points if p <= bound]
     if entry["id"] == "prime_pi_line":

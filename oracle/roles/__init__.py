@@ -17,6 +17,8 @@ from .._errors import InvalidInputError
 from ._role import AbsurdAnswer, Conventions, Role, Verdict, WrongType
 from . import (factor, is_prime, next_prime, nth_prime, prev_prime, prime_pi, primes_in,
                twin_pi)
+from . import (mertens, prime_pi_mod, prime_sum, quadruplet_pi, squarefree_count,
+               triplet_pi_026, triplet_pi_046)
 from . import divisor_count, divisor_sum, mobius, totient
 
 __all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES", "get", "infer"]
@@ -24,6 +26,10 @@ __all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES
 #: Every role by name.
 ROLES: dict[str, Role] = {module.ROLE.name: module.ROLE for module in (
     prime_pi, twin_pi, nth_prime, is_prime, next_prime, prev_prime, primes_in, factor)}
+# The sums over n <= x of issue 15.
+ROLES.update({module.ROLE.name: module.ROLE for module in (
+    prime_sum, prime_pi_mod, mertens, squarefree_count, triplet_pi_026, triplet_pi_046,
+    quadruplet_pi)})
 ROLES.update({module.ROLE.name: module.ROLE for module in (
     mobius, totient, divisor_count, divisor_sum)})
 
@@ -37,6 +43,10 @@ _ALIASES = {
     "primes": "primes_in", "primerange": "primes_in", "primes_between": "primes_in",
     "sieve": "primes_in", "factorint": "factor", "factorize": "factor",
     "factorise": "factor", "factorization": "factor",
+    "sum_primes": "prime_sum", "primesum": "prime_sum", "sum_of_primes": "prime_sum",
+    "mertens_function": "mertens", "count_squarefree": "squarefree_count",
+    "squarefree_pi": "squarefree_count", "primepi_mod": "prime_pi_mod",
+    "primes_in_progression": "prime_pi_mod", "count_primes_mod": "prime_pi_mod",
     "moebius": "mobius", "mu": "mobius", "phi": "totient", "euler_phi": "totient",
     "divisors_count": "divisor_count", "num_divisors": "divisor_count", "tau": "divisor_count",
     "sigma": "divisor_sum", "divisor_sigma": "divisor_sum", "sum_of_divisors": "divisor_sum",

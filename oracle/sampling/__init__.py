@@ -16,6 +16,7 @@ from __future__ import annotations
 
 import os
 from dataclasses import dataclass
+from math import gcd as _gcd
 
 from .._integers import require_int
 from ..roles import Role
@@ -57,6 +58,8 @@ def sample(role: Role, chosen: Profile, seed: int) -> list[Sample]:
         values = family(name, role.name)(ceiling, chosen, rng)
         if role.arity == 2:
             candidates = _intervals(name, values, ceiling, chosen, rng)
+        elif role.arity == 3:
+            candidates = _progressions(name, values, chosen, rng)
         else:
             candidates = [(value,) for value in values if value >= role.minimum]
         for arguments in candidates:
@@ -91,6 +94,29 @@ def _thin_heavy(found: list[Sample], role_name: str, keep: int, budget: int | No
                 kept.add(s)
                 left = None if left is None else left - cost
     return [s for s in found if max(s.arguments) <= threshold or s in kept]
+
+
+#: Progressions (q, a) of prime_pi_mod: q = 1 (all primes), every reduced class of the
+#: small moduli, classes given by an a ≥ q (read modulo q), and moduli around 2¹⁶ (common
+#: practice: a table of classes sized for small q).  Every q stays far below the sampled x,
+#: so an input's size, max(x, q, a), is x (the audit's ``--max`` and heavy caps read it so).
+PROGRESSIONS = tuple(
+    [(1, 0)] + [(q, a) for q in (2, 3, 4, 5, 6, 8, 10, 12) for a in range(q) if _gcd(a, q) == 1]
+    + [(4, 5), (3, 7), (10, 13), (30, 7), (30, 11), (210, 11), (65536, 1), (65537, 3)])
+#: Every x up to here is asked in every class of :data:`PROGRESSIONS` with q ≤ 12.
+_ALL_CLASSES_BELOW = 60
+
+
+def _progressions(name: str, values: list[int], chosen: Profile, rng) -> list[tuple[int, int, int]]:
+    """Triples (x, q, a) from one family's integers: small x in every small class, then each
+    x in two classes drawn from :data:`PROGRESSIONS`."""
+    found = []
+    for x in values:
+        if name == "exhaustive" and x <= _ALL_CLASSES_BELOW:
+            found.extend((x, q, a) for q, a in PROGRESSIONS if q <= 12)
+        else:
+            found.extend((x, q, a) for q, a in rng.sample(PROGRESSIONS, 2))
+    return found
 
 
 def _intervals(name: str, values: list[int], ceiling: int, chosen: Profile, rng) -> list[tuple[int, int]]:

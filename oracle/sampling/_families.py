@@ -208,6 +208,31 @@ def twin_answer_words(ceiling, profile, rng) -> list[int]:
     return _below(_twin_word_points(), ceiling)
 
 
+#: The least prime p with p₁ + ... + p ≥ 2^w, for the word sizes w where a sum of primes kept
+#: in a machine word or a double goes wrong (computed with the oracle's sieve; tests compare
+#: with sympy up to w = 32 and with primesieve for w = 53).
+PRIME_SUM_WORDS = {15: 631, 16: 929, 31: 225287, 32: 323381, 53: 595600673}
+
+
+def sum_words(ceiling, profile, rng) -> list[int]:
+    """x = p − 1, p, p + 1 for the primes p of :data:`PRIME_SUM_WORDS`: the sum of the
+    primes up to x crosses 2^w there (int16, uint16, int32, uint32, the double's 53 bits)."""
+    return _below((p + d for p in PRIME_SUM_WORDS.values() for d in (-1, 0, 1)), ceiling)
+
+
+def square_steps(ceiling, profile, rng) -> list[int]:
+    """d² − 1 and d² for d = B − 1, ..., B + 3 around every power B of two and of ten: at
+    x = d² the term μ(d)·⌊x/d²⌋ of Q(x) = Σ μ(d)·⌊x/d²⌋ first counts, so a squarefree count
+    whose table of μ or whose loop over d stops at a round B goes wrong there (common
+    practice: tables sized at round numbers; a float square root that rounds down)."""
+    found = set()
+    bases = {2**k for k in range(2, 33)} | {10**k for k in range(1, 10)}
+    for base in bases:
+        for d in range(base - 1, base + 4):
+            found.update((d * d - 1, d * d))
+    return _below(found, ceiling)
+
+
 def prime_powers(ceiling, profile, rng) -> list[int]:
     """p^e and p^e ± 1, ± 2 for e = 2..5, p the primes nearest 2^(j/e) for every boundary
     exponent j of the profile, and every power of 2, 3, 5, 7 (common practice: x = p³ breaks a float cube
@@ -423,6 +448,8 @@ FAMILIES = {
     "trial-bounds": trial_bounds,
     "constructed": constructed,
 }
+FAMILIES["sum-words"] = sum_words
+FAMILIES["square-steps"] = square_steps
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",
                    "factor": "factorization"}

@@ -25,10 +25,14 @@ __all__ = ["Profile", "PROFILES", "profile", "HEAVY", "HEAVY_COST", "heavy_cost"
 
 #: Largest argument below which a typical candidate answers in milliseconds.
 HEAVY = {"prime_pi": 2**30, "twin_pi": 2**30, "nth_prime": 2**25, "primes_in": 2**48}
+#: The sums of issue 15 whose candidates sieve up to x (Q(x) needs only √x: not heavy).
+_SUMS_SIEVED_TO_X = ("prime_sum", "prime_pi_mod", "mertens", "triplet_pi_026", "triplet_pi_046", "quadruplet_pi")
+HEAVY.update({name: 2**30 for name in _SUMS_SIEVED_TO_X})
 
 #: How the cost of one heavy call grows with its largest argument m: ``linear`` (a sieve
 #: up to m) or ``root`` (sieving a short interval below m needs the primes up to √m).
 HEAVY_COST = {"prime_pi": "linear", "twin_pi": "linear", "nth_prime": "linear", "primes_in": "root"}
+HEAVY_COST.update({name: "linear" for name in _SUMS_SIEVED_TO_X})
 
 
 def heavy_cost(role_name: str, magnitude: int) -> int:
@@ -73,6 +77,10 @@ _PRIMALITY_CEILING = 2**64 + 2**20
 _CI_CEILINGS = {"prime_pi": 2**32 + 2**20, "twin_pi": 2**32 + 2**20, "nth_prime": 2**28,
                 "is_prime": 2**128, "next_prime": _PRIMALITY_CEILING,
                 "prev_prime": _PRIMALITY_CEILING, "primes_in": 2**64, "factor": 2**66}
+#: The sums of issue 15: above 2³² like the counts; the Mertens sieve is slower (about 30 ns
+#: an integer), so its oracle stops lower; Q(x) costs the oracle only √x.
+_CI_CEILINGS.update({name: 2**32 + 2**20 for name in _SUMS_SIEVED_TO_X})
+_CI_CEILINGS.update({"mertens": 2**30 + 2**20, "squarefree_count": 2**62})
 #: The arithmetic functions factor n, as the factor role does (constructed points go higher).
 _CI_CEILINGS.update({"mobius": 2**66, "totient": 2**66, "divisor_count": 2**66,
                      "divisor_sum": 2**66})
@@ -80,6 +88,8 @@ _CI_CEILINGS.update({"mobius": 2**66, "totient": 2**66, "divisor_count": 2**66,
 #: near 2⁶⁴ for primes_in (primesieve needs about 2 s for one of those).
 _CI_HEAVY_BUDGET = {"prime_pi": 8 * 2**32, "twin_pi": 6 * 2**32, "nth_prime": 8 * 2**28,
                     "primes_in": 5 * 2**32}
+_CI_HEAVY_BUDGET.update({name: 6 * 2**32 for name in _SUMS_SIEVED_TO_X})
+_CI_HEAVY_BUDGET["mertens"] = 2 * 2**30
 
 PROFILES = {
     "quick": Profile("quick", exhaustive=300, random_points=10, reask=3, timeout=5.0, heavy_points=6,

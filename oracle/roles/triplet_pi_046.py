@@ -1,0 +1,21 @@
+"""The triplet_pi_046 role: the number of prime constellations (p, p+4, p+6), all prime, with p+6 ≤ x.
+
+A constellation counts once it lies wholly in [0, x] (the oracle's ``tuplet_pi("triplets_046", x)``,
+a sieve).  The small exceptions are where implementations slip: (5, 7, 11, 13) is the
+only quadruplet not of the form (30k + 11, ..., 30k + 19), and (3, 5, 7) is of neither
+triplet pattern.
+"""
+
+from __future__ import annotations
+
+from ._role import Role
+from ._sums import normalise_sum, sum_judge, sum_memory, sum_relations
+
+ROLE = Role(
+    name="triplet_pi_046", arity=1, minimum=0, counting=True,
+    signature="triplet_pi_046(x) -> int: number of (p, p+4, p+6), all prime, with p+6 <= x",
+    normalise=normalise_sum, judge=sum_judge("triplets_046"),
+    relations=sum_relations("triplets_046", monotone=True), memory=sum_memory("triplets_046"),
+    families=("exhaustive", "boundaries", "twins", "segments", "uniform", "log-uniform",
+              "sieve-seams"),
+)
