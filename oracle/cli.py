@@ -25,8 +25,13 @@ from ._options import (MAX_SEED, check_output_file, check_output_folder, integer
 EXIT_OK, EXIT_FAILED, EXIT_USAGE, EXIT_OUT_OF_REACH, EXIT_INTERNAL, EXIT_NO_VERDICT = 0, 1, 2, 3, 4, 5
 EXIT_INTERRUPTED = 130
 
-VALUE_FUNCTIONS = ("pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
-                   "triplets_026", "triplets_046", "quadruplets")
+#: ``ntoracle value`` answers the roles under their own names, and the short names of the facade.
+VALUE_FUNCTIONS = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
+                   "factor", "primes_in", "pi", "triplets_026", "triplets_046", "quadruplets")
+# The facade's name of each role's question, where it differs from the role's name.
+_FACADE_NAMES = {"prime_pi": "pi", "primes_in": "primes"}
+# Most primes ``value primes_in`` prints as text (--json prints every one).
+_LISTED_PRIMES = 1000
 BOUND_FUNCTIONS = ("pi", "nth_prime", "twin_pi")
 
 CAUTION = ("Cautions: a 'probable' verdict (Baillie-PSW) is not a proof of primality; "
@@ -52,8 +57,10 @@ def build_parser() -> argparse.ArgumentParser:
     value = commands.add_parser("value", help="an exact value with its provenance",
                                 description="Print an exact value and how it was obtained.")
     value.add_argument("function", choices=VALUE_FUNCTIONS, metavar="FUNC",
-                       help="one of: " + ", ".join(VALUE_FUNCTIONS))
-    value.add_argument("n", metavar="N", help="an integer: 123, 1_000, 10**14, 2**64-1, 1e12")
+                       help="one of: " + ", ".join(VALUE_FUNCTIONS)
+                            + " (pi is prime_pi; primes_in takes A B, the primes of [A, B])")
+    value.add_argument("n", metavar="N", nargs="+",
+                       help="an integer: 123, 1_000, 10**14, 2**64-1, 1e12")
     value.add_argument("--json", action="store_true", help="print one JSON object")
     value.add_argument("--budget", type=seconds_option("--budget"), default=None, metavar="SECONDS",
                        help="refuse (exit 3) rather than compute longer than this")
@@ -255,7 +262,13 @@ _PROGRESS_STEPS = 1000
 def _value(arguments) -> int:
     from . import facade
 
-    n = parse_integer(arguments.n)
+    function = _FACADE_NAMES.get(arguments.function, arguments.function)
+    arity = facade.FUNCTIONS[function]
+    if len(arguments.n) != arity:
+        raise InvalidInputError(f"value {arguments.function} takes {arity} integer(s), "
+                                f"got {len(arguments.n)}")
+    numbers = [parse_integer(text) for text in arguments.n]
+    call = f"{arguments.function}({', '.join(map(str, numbers))})"
     if arguments.budget is not None and not arguments.budget > 0:
         raise InvalidInputError(f"--budget {arguments.budget}: must be a positive number of seconds")
     import contextlib
@@ -268,17 +281,34 @@ def _value(arguments) -> int:
                 from . import report
 
                 shown.append(stack.enter_context(report.Progress(
-                    total=_PROGRESS_STEPS, description=f"{arguments.function}({n})")))
+                    total=_PROGRESS_STEPS, description=call)))
             shown[0].advance(max(0, round(fraction * _PROGRESS_STEPS) - shown[0].completed))
 
-        result = facade.answer(arguments.function, n, budget=arguments.budget, progress=progress)
+        options = {"progress": progress} if function in ("pi", "nth_prime") else {}
+        if function not in ("is_prime", "next_prime", "prev_prime", "primes"):
+            options["budget"] = arguments.budget
+        result = facade.answer(function, *numbers, **options)
     if arguments.json:
-        print(json.dumps(result.as_dict()))
+        answer = result.as_dict()
+        answer["function"] = arguments.function
+        print(json.dumps(answer))
     else:
-        print(f"{arguments.function}({n}) = {_show(result.value)}    [{result.provenance}]")
-        if result.provenance.endswith("probable"):
+        print(f"{call} = {_value_text(function, result.value)}    [{result.provenance}]")
+        if "probable" in result.provenance:
             print("note: 'probable' means Baillie-PSW: not a proof of primality.")
     return EXIT_OK
+
+
+def _value_text(function: str, value) -> str:
+    """An answer of ``value`` as text: a factorisation as p^e * q, a long list of primes cut."""
+    if function == "factor":
+        return " * ".join(f"{p}^{e}" if e > 1 else str(p) for p, e in value) or "1 (no prime factor)"
+    if function == "primes":
+        shown = ", ".join(map(str, value[:_LISTED_PRIMES]))
+        if len(value) > _LISTED_PRIMES:
+            shown += f", ... {len(value) - _LISTED_PRIMES} more ({len(value)} primes; --json lists all)"
+        return f"[{shown}]"
+    return _show(value)
 
 
 def _bounds(arguments) -> int:
@@ -546,6 +576,12 @@ def _replay(arguments) -> int:
     groups = _replay_groups(arguments.file)
     if arguments.role:
         groups = {key: points for key, points in groups.items() if key[2] == arguments.role}
+    given = arguments.target or arguments.exec_command
+    roles_in_file = sorted({role for _, _, role in groups})
+    if given and len(roles_in_file) > 1:
+        raise InvalidInputError(
+            f"{arguments.file} holds entries of {len(roles_in_file)} roles "
+            f"({', '.join(roles_in_file)}); a given target plays one: pass --role ROLE")
     if not groups:
         print(f"{arguments.file}: no recorded failures to replay"
               + (f" of role {arguments.role}" if arguments.role else ""))

@@ -220,7 +220,7 @@ def verify_factorization(n: int, factors) -> FactorizationReport:
 FUNCTIONS = {
     "pi": 1, "twin_pi": 1, "nth_prime": 1, "is_prime": 1, "next_prime": 1,
     "prev_prime": 1, "triplets_026": 1, "triplets_046": 1, "quadruplets": 1,
-    "count": 3, "primes": 2,
+    "count": 3, "primes": 2, "factor": 1,
 }
 
 
@@ -253,6 +253,8 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
         return _next_prime(arguments[0])
     if function == "prev_prime":
         return _prev_prime(arguments[0])
+    if function == "factor":
+        return _factor(arguments[0], budget)
     kind, a, b = arguments
     return _count(_check_kind(kind), a, b, budget)
 
@@ -414,6 +416,24 @@ def _prev_prime(n) -> Answer:
 
     value = primality.prev_prime(n)
     return Answer("prev_prime", (n,), value, primality.verdict(value))
+
+
+def _factor(n, budget) -> Answer:
+    """The factorisation of n >= 1 as sorted (p, e) pairs (trial division, Pollard-Brent rho);
+    the provenance is "probable" when a factor is only a Baillie-PSW probable prime."""
+    n = require_int("n", n, minimum=1)
+    seconds = _budget(budget)
+    from .exact import factoring, primality
+
+    try:
+        pairs = factoring.factorise(n, time.monotonic() + seconds)
+    except OutOfReachError as error:
+        raise OutOfReachError(f"factor({bounded_text(n, 60)}): {error} of {seconds:g} s "
+                              f"(a larger --budget may reach it)") from None
+    verdicts = {primality.verdict(p) for p, _ in pairs}
+    method = "trial division+Pollard-Brent rho"
+    return Answer("factor", (n,), [(p, e) for p, e in pairs],
+                  f"{method}; factors {'probable' if 'probable' in verdicts else 'deterministic'}")
 
 
 @_kept(lambda a, b: ("primes", (a, b)))
