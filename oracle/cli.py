@@ -17,7 +17,6 @@ import sys
 import time
 
 from ._errors import InvalidInputError, OracleError, OutOfReachError
-from ._bounded import bounded_text
 from ._integers import parse_integer
 from ._options import (MAX_SEED, check_output_file, check_output_folder, integer_option,
                        memory_option, remove_folders, seconds_option)
@@ -648,66 +647,17 @@ def _replay_groups(path: str) -> dict:
 
 
 def _describe(failure: dict) -> str:
-    call = ", ".join(str(a) for a in failure["arguments"])
-    text = f"[{failure['status']}] {failure['check']} at ({call}) [{failure['family']}]"
-    if failure["status"] in ("wrong", "nondeterministic"):
-        from .report._describe import show_value
+    from .report import finding_line
 
-        got = show_value(failure["got"], 80)
-        expected = show_value(failure["expected"], 80)
-        text += f": got {got}, expected {expected} [{failure['provenance']}]"
-    if failure.get("detail") and not str(failure["detail"]).startswith("got "):
-        text += f" -- {bounded_text(failure['detail'], 160)}"
-    return text
+    return finding_line(failure)
 
 
 def _print_summary(summary: dict, listed: int = 20) -> None:
-    """The verdict, the first ``listed`` findings, the first divergence, skips and timings."""
-    failures = summary["failures"]
-    from .engine import SKIPS_KEEPING_COMPLETE
+    """The verdict, the first ``listed`` findings, the first divergence, skips, reach and timings
+    (:func:`oracle.report.summary_lines`, the same text as report.txt), then the cautions."""
+    from .report import summary_lines
 
-    verdict = {"passed": "PASSED", "failed": "FAILED"}.get(summary["verdict"], "NO VERDICT")
-    reservations = []
-    if summary.get("interrupted"):
-        reservations.append(f"run interrupted ({summary['interrupted']})")
-    elif not summary["ended"]:
-        reservations.append("the results have no end record")
-    if summary["not_run"]:
-        reasons = "; ".join(reason for reason in summary["skipped"]
-                            if reason not in SKIPS_KEEPING_COMPLETE)
-        reservations.append(f"{summary['not_run']} point(s) not run: {reasons}")
-    if summary.get("garbled_lines"):
-        reservations.append(f"{summary['garbled_lines']} garbled line(s) skipped")
-    if summary.get("tampered"):
-        reservations.append("the candidate changed the harness it ran in ("
-                            + ", ".join(summary["tampered"][:3])
-                            + (", ..." if len(summary["tampered"]) > 3 else "")
-                            + "): every check of this run is void; audit it isolated (the default)")
-    print(f"{verdict}: {summary['passed_checks']} of {summary['checks']} checks passed, "
-          f"{len(failures)} finding(s)" + "".join(f" -- {r}" for r in reservations))
-    for failure in failures[:listed]:
-        print("  " + _describe(failure))
-    if len(failures) > listed:
-        print(f"  ... and {len(failures) - listed} more (see the results file)")
-    divergence = summary["first_divergence"]
-    if divergence:
-        where = divergence.get("prime", divergence.get("input"))
-        print(f"{divergence['kind']}: {where}"
-              + (f" (last agreeing: {divergence['last_agreeing']})" if "last_agreeing" in divergence else "")
-              + (f"; got {bounded_text(divergence.get('got'), 80)}, "
-                 f"expected {bounded_text(divergence.get('expected'), 80)}"
-                 if "got" in divergence else "")
-              + (f" [{divergence['provenance']}]" if divergence.get("provenance") else ""))
-    for reason, count in summary["skipped"].items():
-        print(f"skipped {count} point(s): {reason} (not counted as passed)")
-    from .report._terminal import reach_lines
-
-    for line in reach_lines(summary)[:6]:
-        print(line)
-    timings = summary["timings"]
-    first = timings["first_finding_seconds"]
-    print(f"time: {timings['total_seconds']:.2f} s"
-          + (f"; first finding after {first:.3f} s" if first is not None else ""))
+    print("\n".join(summary_lines(summary, listed)))
     print(CAUTION)
 
 
@@ -766,7 +716,9 @@ def _store(arguments) -> int:
 
 
 def _show(value) -> str:
-    return str(value).lower() if isinstance(value, bool) else str(value)
+    from .report import show_value
+
+    return show_value(value, 10**6)
 
 
 def _version() -> str:
