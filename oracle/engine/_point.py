@@ -14,7 +14,7 @@ from __future__ import annotations
 from .. import roles as roles_module
 from .._bounded import bounded_text
 from .._errors import OutOfReachError
-from ..roles import AbsurdAnswer, Conventions, Verdict, WrongType
+from ..roles import AbsurdAnswer, Conventions, Role, Verdict, WrongType
 
 __all__ = ["judge_point", "audit_invalid_inputs", "WRONG_TYPE_CHECK", "SIZE_CHECK"]
 
@@ -37,17 +37,27 @@ def judge_point(role: str, arguments, got, *, conventions: Conventions | dict | 
     chosen = roles_module.get(role)
     rules = conventions if isinstance(conventions, Conventions) else Conventions(**(conventions or {}))
     arguments = tuple(arguments) if isinstance(arguments, (tuple, list)) else (arguments,)
-    try:
-        value = chosen.normalise(got, rules)
-    except AbsurdAnswer as error:
-        return Verdict(SIZE_CHECK, False, "an integer of at most about 4010 digits", "definition",
-                       bounded_text(str(error)))
-    except WrongType as error:
-        return Verdict(WRONG_TYPE_CHECK, False, chosen.signature, "definition", bounded_text(str(error)))
+    value, refused = normalise_answer(chosen, got, rules)
+    if refused is not None:
+        return refused
     try:
         return chosen.judge(arguments, value, rules, budget)
     except OutOfReachError as error:
         return Verdict("exact", False, None, "", bounded_text(str(error)), reach=False)
+
+
+def normalise_answer(role: Role, raw, conventions: Conventions) -> tuple[object, Verdict | None]:
+    """``(value, None)``: the raw answer in the role's normal form; or ``(None, verdict)``, the
+    failed verdict on an answer of a type the role does not accept (check ``"type"``) or an
+    integer too large to be any answer (check ``"size"``).  The audit uses it too."""
+    try:
+        return role.normalise(raw, conventions), None
+    except AbsurdAnswer as error:
+        return None, Verdict(SIZE_CHECK, False, "an integer of at most about 4010 digits",
+                             "definition", bounded_text(str(error)))
+    except WrongType as error:
+        return None, Verdict(WRONG_TYPE_CHECK, False, role.signature, "definition",
+                             bounded_text(str(error)))
 
 
 def audit_invalid_inputs(target, options, points: list[tuple[int, ...]]) -> dict:
