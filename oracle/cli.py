@@ -26,9 +26,10 @@ EXIT_INTERRUPTED = 130
 
 #: ``ntoracle value`` answers the roles under their own names, and the short names of the facade.
 VALUE_FUNCTIONS = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
-                   "factor", "primes_in", "pi", "triplets_026", "triplets_046", "quadruplets")
+                   "factor", "primes_in", "mobius", "totient", "divisor_count", "divisor_sum",
+                   "pi", "triplets_026", "triplets_046", "quadruplets")
 # The facade's name of each role's question, where it differs from the role's name.
-_FACADE_NAMES = {"prime_pi": "pi", "primes_in": "primes"}
+_FACADE_NAMES = {"prime_pi": "pi", "primes_in": "primes", "factor": "factorization"}
 # Most primes ``value primes_in`` prints as text (--json prints every one).
 _LISTED_PRIMES = 1000
 BOUND_FUNCTIONS = ("pi", "nth_prime", "twin_pi")
@@ -286,7 +287,13 @@ def _value(arguments) -> int:
         options = {"progress": progress} if function in ("pi", "nth_prime") else {}
         if function not in ("is_prime", "next_prime", "prev_prime", "primes"):
             options["budget"] = arguments.budget
-        result = facade.answer(function, *numbers, **options)
+        try:
+            result = facade.answer(function, *numbers, **options)
+        except OutOfReachError as error:
+            if function != "factorization" and function not in facade.MULTIPLICATIVE:
+                raise
+            raise OutOfReachError(str(error).replace("factorization(", "factor(", 1)
+                                  + "; a larger --budget may reach it") from None
     if arguments.json:
         answer = result.as_dict()
         answer["function"] = arguments.function
@@ -300,7 +307,7 @@ def _value(arguments) -> int:
 
 def _value_text(function: str, value) -> str:
     """An answer of ``value`` as text: a factorisation as p^e * q, a long list of primes cut."""
-    if function == "factor":
+    if function == "factorization":
         return " * ".join(f"{p}^{e}" if e > 1 else str(p) for p, e in value) or "1 (no prime factor)"
     if function == "primes":
         shown = ", ".join(map(str, value[:_LISTED_PRIMES]))

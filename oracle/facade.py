@@ -22,6 +22,14 @@ Routes and their provenance labels (docs/DESIGN.md, "The oracle's promise"):
 ``probable``
     Baillie–PSW above that bound: no counterexample is known, none is proven
     impossible.  A probable prime is not a proven prime.
+``factorised+deterministic`` / ``factorised+probable``
+    a factorisation found by trial division and Brent's rho within the budget
+    (:mod:`oracle.exact.factorisation`), each prime factor proven or probable as
+    above; μ, φ, d and σ are computed from it;
+``constructed: certified factors``
+    n was built from primes with Pocklington certificates and registered by
+    the sampling family that built it (:mod:`oracle.adversarial._constructed`):
+    its factorisation is proven at any size.
 
 Answers that took long to compute are kept on disk between runs
 (:mod:`oracle._store`); every route below passes through :func:`_kept`, the one
@@ -47,6 +55,7 @@ __all__ = [
     "Answer", "FactorizationReport",
     "pi", "twin_pi", "tuplet_pi", "count", "nth_prime", "is_prime",
     "next_prime", "prev_prime", "primes", "verify_factorization", "answer",
+    "factorization", "mobius", "totient", "divisor_count", "divisor_sum", "MULTIPLICATIVE",
     "FUNCTIONS", "TUPLET_KINDS", "DEFAULT_BUDGET_SECONDS",
 ]
 
@@ -65,6 +74,8 @@ PRIMES_MAX_COUNT = 5 * 10**7
 # core of this machine counts the primes below 10**10 in about 0.5 s; our numpy
 # engine is slower).  Used only to choose a route and to refuse early.
 _SIEVE_SECONDS_PER_INTEGER = {"primesieve": 6e-11, "numpy": 6e-10}
+# The numpy engine on a short interval high up: small-prime sieve, survivors proven.
+_NUMPY_PROOF_SECONDS_PER_INTEGER = 3e-7
 # Beyond 2**64 a short interval is sieved by small primes and every survivor
 # is tested with Baillie-PSW; this caps the interval length.
 _SIEVE_MAX_SPAN_BEYOND_64 = 10**8
@@ -213,6 +224,85 @@ def verify_factorization(n: int, factors) -> FactorizationReport:
 
 
 # --------------------------------------------------------------------------- #
+# Factorisation and the multiplicative functions
+# --------------------------------------------------------------------------- #
+
+def factorization(n: int, *, budget: float | None = None) -> dict[int, int]:
+    """The prime factorisation {p: e} of n ≥ 1 ({} for 1), or :class:`OutOfReachError`."""
+    return dict(_factorization(n, budget)[0])
+
+
+def mobius(n: int, *, budget: float | None = None) -> int:
+    """μ(n) for n ≥ 1: 0 if a square > 1 divides n, else (−1)^(number of prime factors)."""
+    return _multiplicative("mobius", n, budget).value
+
+
+def totient(n: int, *, budget: float | None = None) -> int:
+    """φ(n) for n ≥ 1: how many k in [1, n] have gcd(k, n) = 1 (φ(1) = 1)."""
+    return _multiplicative("totient", n, budget).value
+
+
+def divisor_count(n: int, *, budget: float | None = None) -> int:
+    """d(n) = σ₀(n) for n ≥ 1: the number of positive divisors (d(1) = 1)."""
+    return _multiplicative("divisor_count", n, budget).value
+
+
+def divisor_sum(n: int, *, budget: float | None = None) -> int:
+    """σ(n) = σ₁(n) for n ≥ 1: the sum of the positive divisors (σ(1) = 1)."""
+    return _multiplicative("divisor_sum", n, budget).value
+
+
+def _mobius_of(pairs) -> int:
+    return 0 if any(e > 1 for _, e in pairs) else (-1) ** len(pairs)
+
+
+def _totient_of(pairs) -> int:
+    return math.prod(p ** (e - 1) * (p - 1) for p, e in pairs)
+
+
+def _divisor_count_of(pairs) -> int:
+    return math.prod(e + 1 for _, e in pairs)
+
+
+def _divisor_sum_of(pairs) -> int:
+    return math.prod((p ** (e + 1) - 1) // (p - 1) for p, e in pairs)
+
+
+#: The multiplicative functions, each from the (p, e) pairs of n (Hardy & Wright, ch. XVI).
+MULTIPLICATIVE = {"mobius": _mobius_of, "totient": _totient_of,
+                  "divisor_count": _divisor_count_of, "divisor_sum": _divisor_sum_of}
+
+#: Provenance of a factorisation known from its construction.
+CONSTRUCTED = "constructed: certified factors"
+
+
+def _factorization(n, budget) -> tuple[list[tuple[int, int]], str]:
+    """The sorted (p, e) pairs of n and their provenance: the construction when n was
+    registered, else trial division and Brent's rho within the budget."""
+    n = require_int("n", n, minimum=1)
+    budget = _budget(budget)
+    from .adversarial import _constructed
+
+    built = _constructed.known(n)
+    if built is not None:
+        return sorted(built.factorisation.items()), CONSTRUCTED
+    from .exact import factorisation
+
+    try:
+        found, verdict = factorisation.factorise(n, budget)
+    except factorisation.TooSlow as error:
+        raise OutOfReachError(f"factorization({n}): {error} ({budget:g} s)") from None
+    return sorted(found.items()), f"factorised+{verdict}"
+
+
+def _multiplicative(function: str, n, budget) -> Answer:
+    pairs, provenance = _factorization(n, budget)
+    if function == "factorization":
+        return Answer(function, (n,), [list(pair) for pair in pairs], provenance)
+    return Answer(function, (n,), MULTIPLICATIVE[function](pairs), provenance)
+
+
+# --------------------------------------------------------------------------- #
 # The companion call
 # --------------------------------------------------------------------------- #
 
@@ -220,7 +310,8 @@ def verify_factorization(n: int, factors) -> FactorizationReport:
 FUNCTIONS = {
     "pi": 1, "twin_pi": 1, "nth_prime": 1, "is_prime": 1, "next_prime": 1,
     "prev_prime": 1, "triplets_026": 1, "triplets_046": 1, "quadruplets": 1,
-    "count": 3, "primes": 2, "factor": 1,
+    "count": 3, "primes": 2,
+    "factorization": 1, "mobius": 1, "totient": 1, "divisor_count": 1, "divisor_sum": 1,
 }
 
 
@@ -253,8 +344,8 @@ def answer(function: str, *arguments, budget: float | None = None, progress=None
         return _next_prime(arguments[0])
     if function == "prev_prime":
         return _prev_prime(arguments[0])
-    if function == "factor":
-        return _factor(arguments[0], budget)
+    if function == "factorization" or function in MULTIPLICATIVE:
+        return _multiplicative(function, arguments[0], budget)
     kind, a, b = arguments
     return _count(_check_kind(kind), a, b, budget)
 
@@ -418,24 +509,6 @@ def _prev_prime(n) -> Answer:
     return Answer("prev_prime", (n,), value, primality.verdict(value))
 
 
-def _factor(n, budget) -> Answer:
-    """The factorisation of n >= 1 as sorted (p, e) pairs (trial division, Pollard-Brent rho);
-    the provenance is "probable" when a factor is only a Baillie-PSW probable prime."""
-    n = require_int("n", n, minimum=1)
-    seconds = _budget(budget)
-    from .exact import factoring, primality
-
-    try:
-        pairs = factoring.factorise(n, time.monotonic() + seconds)
-    except OutOfReachError as error:
-        raise OutOfReachError(f"factor({bounded_text(n, 60)}): {error} of {seconds:g} s "
-                              f"(a larger --budget may reach it)") from None
-    verdicts = {primality.verdict(p) for p, _ in pairs}
-    method = "trial division+Pollard-Brent rho"
-    return Answer("factor", (n,), [(p, e) for p, e in pairs],
-                  f"{method}; factors {'probable' if 'probable' in verdicts else 'deterministic'}")
-
-
 @_kept(lambda a, b: ("primes", (a, b)))
 def _primes(a, b) -> Answer:
     a = require_int("a", a, minimum=0)
@@ -566,8 +639,12 @@ def _sieve_seconds(a: int, b: int) -> float | None:
     from .exact import sieve
 
     engine = "primesieve" if sieve.active_engine().startswith("primesieve") else "numpy"
-    # Sieving also needs the primes up to sqrt(b).
-    return (length + math.isqrt(b)) * _SIEVE_SECONDS_PER_INTEGER[engine]
+    # Sieving also needs the primes up to sqrt(b) -- except that the numpy engine
+    # proves the survivors of a small-prime sieve instead on a short interval high up.
+    seconds = (length + math.isqrt(b)) * _SIEVE_SECONDS_PER_INTEGER[engine]
+    if engine == "numpy":
+        seconds = min(seconds, length * _NUMPY_PROOF_SECONDS_PER_INTEGER)
+    return seconds
 
 
 def _sieve_count(kind: str, a: int, b: int) -> tuple[int, str]:

@@ -18,6 +18,7 @@ import pytest
 
 from oracle._errors import InvalidInputError, OracleError, OutOfReachError
 from oracle.exact import combinatorial
+from oracle.exact.combinatorial import _parallel, _prime_pi
 from oracle.exact.combinatorial._arithmetic_tables import (least_prime_factor_and_moebius,
                                                            prime_count_table)
 from oracle.exact.combinatorial._deleglise_rivat import prime_pi_deleglise_rivat
@@ -473,3 +474,104 @@ def test_riemann_r_agrees_with_mpmath():
     for x in (100.0, 1e6, 1e12, 1e18):
         assert riemann_r(x) == pytest.approx(float(mpmath.riemannr(x)), rel=1e-12)
     assert inverse_riemann_r(riemann_r(1e15)) == pytest.approx(1e15, rel=1e-12)
+
+
+# --------------------------------------------------------------------------------------
+# Both cores: the costly stages in worker processes (forkserver or spawn, never fork)
+# --------------------------------------------------------------------------------------
+
+def test_worker_processes_are_never_started_by_plain_fork():
+    # After fork() of a process that used primecountpy its thread pool deadlocks.
+    assert _parallel._context().get_start_method() in ("forkserver", "spawn")
+
+
+def test_two_workers_after_primecountpy_ran_in_this_process():
+    # primecountpy's threads are running in this process; a forked worker would hang.
+    x = 10**13 + 4321
+    expected = primecount.prime_pi(x)
+    assert combinatorial.prime_pi(x, workers=2) == expected
+
+
+def test_workers_one_and_two_agree_with_primecountpy_near_powers_of_ten():
+    xs = [10**k + d for k in range(6, 14) for d in (-1, 0, 1, 999)]
+    for x in xs:
+        single = combinatorial.prime_pi(x, workers=1)
+        assert combinatorial.prime_pi(x, workers=2) == single == primecount.prime_pi(x), x
+
+
+def test_workers_one_and_two_agree_with_primecountpy_at_random_x():
+    rng = random.Random(2026)
+    for _ in range(25):
+        x = log_uniform(rng, 10**6, 3 * 10**13)
+        single = combinatorial.prime_pi(x, workers=1)
+        assert combinatorial.prime_pi(x, workers=2) == single == primecount.prime_pi(x), x
+
+
+@pytest.mark.parametrize("segment_size", [SEGMENT_GRANULE, 4 * SEGMENT_GRANULE, 64 * SEGMENT_GRANULE])
+def test_many_uniform_blocks_join_to_the_single_process_answer(segment_size):
+    # Short segments give dozens of hard-leaf blocks whose carried counts must be joined.
+    rng = random.Random(segment_size)
+    for x in [10**9, 2**33 + 17] + [log_uniform(rng, 10**7, 10**11) for _ in range(4)]:
+        expected = prime_pi_deleglise_rivat(x, segment_size=segment_size)
+        assert _parallel.prime_pi_in_workers(x, 2, segment_size=segment_size) == expected, x
+        assert expected == primecount.prime_pi(x), x
+
+
+def test_three_workers_give_the_same_answer():
+    x = 7 * 10**12 + 12345
+    assert combinatorial.prime_pi(x, workers=3) == primecount.prime_pi(x)
+
+
+@pytest.mark.parametrize("n", [13, 14])
+def test_two_workers_at_powers_of_ten_match_oeis_a006880(n):
+    assert combinatorial.prime_pi(10**n, workers=2) == PI_POWERS_OF_TEN[n]  # OEIS A006880
+
+
+@pytest.mark.slow
+@pytest.mark.parametrize("n", [15, 16])
+def test_two_workers_at_larger_powers_of_ten_match_oeis_a006880(n):
+    assert combinatorial.prime_pi(10**n, workers=2) == PI_POWERS_OF_TEN[n]  # OEIS A006880
+
+
+@pytest.mark.slow
+def test_workers_one_and_two_agree_with_primecountpy_at_random_x_up_to_10_to_15():
+    rng = random.Random(15)
+    for _ in range(6):
+        x = log_uniform(rng, 10**14, 10**15)
+        single = combinatorial.prime_pi(x, workers=1)
+        assert combinatorial.prime_pi(x, workers=2) == single == primecount.prime_pi(x), x
+
+
+def test_default_workers_use_the_cores_only_for_large_x():
+    assert _parallel.default_workers(combinatorial.MIN_PARALLEL_X - 1) == 1
+    assert _parallel.default_workers(combinatorial.MIN_PARALLEL_X) == _parallel.available_cores()
+
+
+@pytest.mark.parametrize("bad", [0, -1, 1.5, "2", True])
+def test_bad_worker_counts_are_refused(bad):
+    with pytest.raises(InvalidInputError, match="workers"):
+        combinatorial.prime_pi(10**12, workers=bad)
+
+
+def test_progress_with_two_workers_is_ordered_and_ends_with_done():
+    calls = []
+    x = 2 * 10**14 + 77
+    value = combinatorial.prime_pi(x, workers=2, progress=lambda f, s: calls.append((f, s)))
+    assert value == primecount.prime_pi(x)
+    fractions = [f for f, _ in calls]
+    assert len(calls) >= 2 and calls[-1] == (1.0, "done")
+    assert fractions == sorted(fractions) and all(0.0 <= f <= 1.0 for f in fractions)
+    assert any("blocks left" in s for _, s in calls)
+
+
+def test_time_budget_stops_the_workers_and_the_next_run_still_works(monkeypatch):
+    # The cost model would refuse 10**16 with a 0.5 s budget before starting; silence it
+    # so the run starts and must be stopped by the clock while the workers compute.
+    monkeypatch.setattr(_prime_pi, "estimated_seconds", lambda x: 0.0)
+    started = time.monotonic()
+    with pytest.raises(OutOfReachError, match="over the time budget"):
+        combinatorial.prime_pi(10**16, time_budget=0.5, workers=2)
+    assert time.monotonic() - started < 20
+    assert _parallel._pool is None                        # the workers were terminated
+    x = 10**13 + 99
+    assert combinatorial.prime_pi(x, workers=2) == primecount.prime_pi(x)

@@ -16,8 +16,9 @@ def judge(role_name, arguments, raw, conventions=CONVENTIONS):
 
 
 def test_registry_has_the_eight_roles_of_the_design():
-    assert set(roles.ROLES) == {"prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
+    assert set(roles.ROLES) >= {"prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime",
                                 "prev_prime", "primes_in", "factor"}
+    assert set(roles.ROLES) >= {"mobius", "totient", "divisor_count", "divisor_sum"}   # issue 15
 
 
 @pytest.mark.parametrize("name, role", [("prime_pi", "prime_pi"), ("twin_pi", "twin_pi"),

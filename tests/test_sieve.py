@@ -306,7 +306,7 @@ def test_numpy_primes_near_2_to_56_match_sympy():
 
 
 def test_numpy_counts_just_below_2_to_64_match_sympy():
-    # The numpy sieve needs every prime below 2**32 here: the costliest default test.
+    # Short beside sqrt(b): the numpy engine sieves by small primes and proves the survivors.
     a, b = TWO_64 - 1200, TWO_64 - 1
     assert NUMPY.count_all(a, b) == {kind: brute_force_count(kind, a, b) for kind in sieve.KINDS}
 
@@ -330,6 +330,88 @@ def test_numpy_primes_just_below_2_to_64_match_sympy():
                                   (TWO_64 - 59, TWO_64 - 59), (TWO_64 - 3 * 10**6, TWO_64 - 10**6)])
 def test_engines_agree_just_below_2_to_64(a, b):
     assert NUMPY.count_all(a, b) == PRIMESIEVE.count_all(a, b)
+
+
+# --- short intervals high up: small primes only, survivors proven ----------------------
+
+def takes_the_proof_route(a: int, b: int) -> bool:
+    """Whether the numpy engine sieves ``[a, b]`` by small primes only and proves the survivors."""
+    return _segmented._sieves_by_small_primes_only(a + 1 if a % 2 == 0 else a, b)
+
+
+SHORT_HIGH_INTERVALS = [(TWO_64 - 3000, TWO_64 - 1), (2**63 - 1500, 2**63 + 1500),
+                        (10**18 - 1500, 10**18 + 1500), (10**16 + 10**9, 10**16 + 10**9 + 1000)]
+
+
+@pytest.mark.parametrize("a, b", SHORT_HIGH_INTERVALS)
+def test_short_high_intervals_match_sympy(a, b):
+    assert takes_the_proof_route(a, b)
+    assert NUMPY.primes(a, b).tolist() == list(sympy.primerange(a, b + 1))
+
+
+@needs_primesieve
+@pytest.mark.parametrize("a, b", SHORT_HIGH_INTERVALS + [(TWO_64 - 10**6, TWO_64 - 1),
+                                                         (10**18, 10**18 + 10**6)])
+def test_short_high_intervals_match_primesieve_on_every_kind(a, b):
+    assert takes_the_proof_route(a, b)
+    assert NUMPY.count_all(a, b) == PRIMESIEVE.count_all(a, b)
+
+
+def test_proof_route_agrees_with_the_full_base_sieve(monkeypatch):
+    # The same intervals by both routes of the numpy engine (sympy's primes as the witness).
+    rng = random.Random(20261203)
+    intervals = [(a, a + rng.randrange(1, 3000)) for a in
+                 (rng.randrange(10**14, 10**16) for _ in range(6))]
+    proven = [NUMPY.count_all(a, b) for a, b in intervals]
+    assert all(takes_the_proof_route(a, b) for a, b in intervals)
+    monkeypatch.setattr(_segmented, "_PROOF_TO_SIEVE_COST", 10**30)   # never the proof route
+    assert not any(takes_the_proof_route(a, b) for a, b in intervals)
+    assert [NUMPY.count_all(a, b) for a, b in intervals] == proven
+    a, b = intervals[0]
+    assert sum(1 for n in range(a, b + 1) if sympy.isprime(n)) == proven[0]["primes"]
+
+
+@pytest.mark.parametrize("p", [65537, 65539, 65543, 65551, 65557])
+def test_squares_of_primes_just_above_the_small_prime_limit_are_not_prime(p):
+    # p (prime, checked by sympy) exceeds SMALL_PRIME_LIMIT = 2**16, so p*p survives the
+    # small-prime sieve and only the strong test can strike it.
+    assert sympy.isprime(p) and p > _segmented.SMALL_PRIME_LIMIT
+    a, b = p * p - 300, p * p + 300
+    assert takes_the_proof_route(a, b)
+    found = NUMPY.primes(a, b).tolist()
+    assert p * p not in found
+    assert found == list(sympy.primerange(a, b + 1))
+
+
+def test_squares_and_products_of_large_primes_near_2_to_64_are_not_prime():
+    # q = the largest prime below 2**32 (sympy.prevprime); q*q < 2**64 has no factor below 2**16.
+    q = sympy.prevprime(2**32)
+    r = sympy.prevprime(q)
+    for n in (q * q, q * r):
+        a, b = n - 500, min(n + 500, TWO_64 - 1)
+        assert takes_the_proof_route(a, b)
+        found = NUMPY.primes(a, b).tolist()
+        assert n not in found
+        assert found == list(sympy.primerange(a, b + 1))
+
+
+@pytest.mark.parametrize("psi", [341550071728321, 3825123056546413051])
+def test_strong_pseudoprimes_without_small_factors_are_not_prime(psi):
+    # OEIS A014233: psi_7 = psi_8 and psi_9 = psi_10 = psi_11, strong pseudoprimes to the
+    # first 8 (resp. 11) prime bases; every prime factor (sympy.factorint) exceeds 2**16,
+    # so they survive the small-prime sieve and the right number of bases must reject them.
+    assert min(sympy.factorint(psi)) > _segmented.SMALL_PRIME_LIMIT
+    a, b = psi - 1000, psi + 1000
+    assert takes_the_proof_route(a, b)
+    found = NUMPY.primes(a, b).tolist()
+    assert psi not in found
+    assert found == list(sympy.primerange(a, b + 1))
+
+
+def test_long_or_low_intervals_keep_the_full_base_sieve():
+    assert not takes_the_proof_route(0, 10**9)
+    assert not takes_the_proof_route(TWO_64 - 10**8, TWO_64 - 1)
+    assert not takes_the_proof_route(2**32 - 100, 2**32)        # sqrt(b) within the small primes
 
 
 # --- beyond 2**64 ----------------------------------------------------------------------

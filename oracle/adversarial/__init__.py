@@ -11,7 +11,8 @@ published OEIS terms):
 * semiprimes: close (Fermat-factorable), balanced and unbalanced;
 * B-smooth numbers;
 * twin prime pairs around powers of two;
-* primes with Pocklington certificates, and products with proven factorisations.
+* primes with Pocklington certificates, and products with proven factorisations;
+* numbers built from a chosen factorisation, registered for the oracle (constructed truth).
 
 All generators are plain functions returning lists of Python ints (or
 certificates), deterministic given their arguments; randomness comes only
@@ -22,6 +23,7 @@ correctness.
 
 from ._carmichael import (CARMICHAEL_NUMBERS, CHERNICK_CARMICHAEL_NUMBERS,
                           carmichael_numbers_below, chernick_carmichael_numbers)
+from ._constructed import ConstructedNumber, construct, known, register
 from ._certified import (PrimeCertificate, certified_prime, certified_primes,
                          certified_product, verify_certificate)
 from ._lucas_pseudoprimes import (FIBONACCI_PSEUDOPRIMES, LUCAS_PSEUDOPRIMES,
@@ -43,6 +45,10 @@ __all__ = [
     "carmichael_numbers_below",
     "chernick_carmichael_numbers",
     "PrimeCertificate",
+    "ConstructedNumber",
+    "construct",
+    "known",
+    "register",
     "certified_prime",
     "certified_primes",
     "certified_product",

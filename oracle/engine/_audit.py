@@ -22,8 +22,9 @@ The order of work:
    then, for counting roles, the climb above the sampled points
    (:mod:`oracle.engine._reach`): table points ± 1 and random points per
    octave, as high as the candidate's speed, the oracle's cost and the time
-   budget allow; for primality, next/prev prime and factor the climb by bit
-   size (:mod:`oracle.engine._reach_bits`) up to 2²⁰⁴⁸; each family's reach
+   budget allow; for primality, next/prev prime, factor and the arithmetic
+   functions (on constructed numbers) the climb by bit size
+   (:mod:`oracle.engine._reach_bits`) up to 2²⁰⁴⁸; each family's reach
    is recorded (``reach`` records);
 3. a sample of the sampled answers is asked again: a different answer is
    "nondeterministic";

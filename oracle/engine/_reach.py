@@ -34,7 +34,8 @@ first step that does not fit, and the reason is recorded (a ``reach`` record):
 "candidate speed", "oracle budget", "declared domain (--max)", "time budget",
 "after failures", or "end of the oracle's tables".  Where a call costs more than
 :data:`THIN_ABOVE`, the table steps thin out to powers of ten and a few word
-sizes, one input each, so that the time goes to larger sizes.  A step that finds a defect
+sizes (± 1, and above :data:`SINGLE_ABOVE` the point alone), so that the time
+goes to larger sizes.  A step that finds a defect
 ends the climb: the localisation (bisection) takes it from there.
 """
 
@@ -64,11 +65,13 @@ TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_pri
 #: times out on a loaded machine is asked again with a longer limit, see
 #: :mod:`oracle.engine._timeouts`).
 CALL_SHARE = 0.75
-#: Above this projected time per call, the climb thins out: a table step asks the table
-#: point alone (not its neighbours) and only at powers of ten and at the word sizes of
-#: :data:`THIN_POWERS_OF_TWO`, so that the time left goes to larger sizes.
-THIN_ABOVE = 0.25
+#: Above this projected time per call, the climb thins out: table steps only at powers of
+#: ten and at the word sizes of :data:`THIN_POWERS_OF_TWO`, so that the time left goes
+#: to larger sizes.
+THIN_ABOVE = 0.05
 THIN_POWERS_OF_TWO = (53, 63, 64, 96, 128)
+#: Above this projected time per call, a thinned step asks the table point alone.
+SINGLE_ABOVE = 1.0
 #: Share of the time budget kept for the phases after the climb.
 RESERVE = 0.1
 #: Share of the time left that one random step may take: the table points, whose reference
@@ -133,26 +136,27 @@ def climb(run, seed: int) -> None:
     timeout = run.call_timeout()
     budget = run.options.oracle_budget
     steps = _steps(role.name, start, random.Random(f"{seed}:climb"))
-    for size, family, inputs in steps:
+    for index, (size, family, inputs) in enumerate(steps):
         if family in stopped:
             continue
+        ahead = {family} | {name for _, name, _ in steps[index + 1:]}    # families with steps left
         maximum = run.options.maximum
         inputs = [x for x in inputs if x >= role.minimum and (maximum is None or x <= maximum)]
         if not inputs:
-            for name in CLIMB_FAMILIES:
+            for name in ahead:
                 stopped.setdefault(name, (DECLARED_DOMAIN, size))
             break
-        if family == CLIMB_TABLES and _thinned(run, inputs):
-            inputs = _thin(inputs)
+        if family == CLIMB_TABLES and _projected(run, inputs) > THIN_ABOVE:
+            inputs = _thin(inputs, single=_projected(run, inputs) > SINGLE_ABOVE)
             if not inputs:
                 continue
         size = max(inputs)
         share = RANDOM_SHARE if family == CLIMB_RANDOM else 1.0
         reason = _why_not(run, size, inputs, timeout, budget, share)
         if reason is not None:
-            for name in (CLIMB_FAMILIES if reason in _FOR_EVERY_LARGER_STEP else (family,)):
+            for name in (ahead if reason in _FOR_EVERY_LARGER_STEP else (family,)):
                 stopped.setdefault(name, (reason, size))
-            if len(stopped) == len(CLIMB_FAMILIES):
+            if ahead <= set(stopped):
                 break
             continue
         before = (len(run.too_slow), len(run.failures), run.faults)
@@ -163,7 +167,7 @@ def climb(run, seed: int) -> None:
         elif (len(run.failures), run.faults) != before[1:]:
             reason = AFTER_FAILURES
         if reason is not None:
-            for name in CLIMB_FAMILIES:
+            for name in ahead:
                 stopped.setdefault(name, (reason, None))
             break
     for family in CLIMB_FAMILIES:
@@ -173,19 +177,20 @@ def climb(run, seed: int) -> None:
                           "elapsed": run.elapsed()})
 
 
-def _thinned(run, inputs: list[int]) -> bool:
-    """Whether a table step is in the expensive part of the climb (see :data:`THIN_ABOVE`)."""
-    projected = run.speed.project(max(inputs))
-    return projected is not None and projected > THIN_ABOVE
+def _projected(run, inputs: list[int]) -> float:
+    """The candidate's projected seconds per call at the largest input (0 before any call)."""
+    return run.speed.project(max(inputs)) or 0.0
 
 
-def _thin(inputs: list[int]) -> list[int]:
-    """The table point of a step (its middle input) if it is a power of ten or one of
-    :data:`THIN_POWERS_OF_TWO`, else nothing."""
+def _thin(inputs: list[int], single: bool) -> list[int]:
+    """A table step of the expensive part of the climb: kept only at a power of ten or one
+    of :data:`THIN_POWERS_OF_TWO`, with its neighbours unless ``single``."""
     point = inputs[len(inputs) // 2]
     power_of_two = point & (point - 1) == 0 and point.bit_length() - 1 in THIN_POWERS_OF_TWO
     power_of_ten = len(str(point)) <= 40 and str(point).rstrip("0") == "1"
-    return [point] if power_of_two or power_of_ten else []
+    if not (power_of_two or power_of_ten):
+        return []
+    return [point] if single else inputs
 
 
 def _why_not(run, size: int, inputs: list[int], timeout: float, budget: float,

@@ -1,4 +1,4 @@
-"""Reach by digits: primality, next/prev prime and factor climb far above 2⁶⁴.
+"""Reach by digits: primality, next/prev prime, factor and the arithmetic functions climb far above 2⁶⁴.
 
 The sampled families of ``is_prime``, ``next_prime``, ``prev_prime`` and
 ``factor`` stop between 2⁶⁴ and 2¹²⁸ (:mod:`oracle.sampling._profiles`).  A
@@ -17,7 +17,13 @@ of :data:`LADDER` up to the profile's :data:`TOP_BITS`), and asks at each size:
     2^j − 1 (next) or 2^j + 1 (prev);
 ``factor``
     q·P′, q²·P′ and q·r·P′ with q, r consecutive primes of 24 bits and P′ a
-    certified prime that makes the product j bits long;
+    certified prime that makes the product j bits long, registered as
+    constructed numbers (:mod:`oracle.adversarial._constructed`), so that the
+    judge compares with their proven factorisation;
+``mobius``, ``totient``, ``divisor_count``, ``divisor_sum``
+    the constructed numbers of :func:`oracle.sampling._families.constructed_at`
+    (P, p², p³, q·P, 2^a·3^b·r·P, q²·r·P, q·r·s·P of j bits), registered, so the
+    oracle answers from their certified factors far beyond any factoriser;
 
 and, at the first size at or above them, every published or constructed
 pseudoprime and Carmichael number of the sampling families above the role's
@@ -38,6 +44,7 @@ reason, like the counting climb (:mod:`oracle.engine._reach`).
 
 from __future__ import annotations
 
+import math
 import random
 
 from .. import adversarial
@@ -55,6 +62,8 @@ LADDER = (65, 66, 72, 80, 81, 88, 96, 112, 128, 129, 160, 192, 256, 384, 512, 76
 #: The largest bit size climbed per profile (certified primes are built up to 2048 bits).
 TOP_BITS = {"quick": 512, "ci": 2048, "deep": 2048, "exhaustive": 2048}
 ROLES = ("is_prime", "next_prime", "prev_prime", "factor")
+#: The arithmetic-function roles, which climb on constructed numbers (their truth is known).
+CONSTRUCTED_ROLES = ("mobius", "totient", "divisor_count", "divisor_sum")
 #: Bits of the small primes multiplying the certified prime of a factor step.
 SMALL_FACTOR_BITS = 24
 #: Growth of a call's cost with the digits (schoolbook modular exponentiation).
@@ -77,13 +86,16 @@ def _pseudoprimes_above(ceiling: int) -> list[int]:
 
 def _step_inputs(role_name: str, bits: int, rng: random.Random) -> list[int]:
     """The inputs asked at bit size ``bits`` (see the module's docstring)."""
+    if role_name in CONSTRUCTED_ROLES:
+        return _families.constructed_at(bits, rng)
     if role_name == "factor":
         q = next_prime(rng.randrange(2**(SMALL_FACTOR_BITS - 1), 2**SMALL_FACTOR_BITS))
         r = next_prime(q)
         rest = bits - SMALL_FACTOR_BITS
-        return [q * adversarial.certified_prime(rest, rng).n,
-                q * q * adversarial.certified_prime(rest - SMALL_FACTOR_BITS, rng).n,
-                q * r * adversarial.certified_prime(rest - SMALL_FACTOR_BITS, rng).n]
+        built = [((q, 1), (adversarial.certified_prime(rest, rng), 1)),
+                 ((q, 2), (adversarial.certified_prime(rest - SMALL_FACTOR_BITS, rng), 1)),
+                 ((q, 1), (r, 1), (adversarial.certified_prime(rest - SMALL_FACTOR_BITS, rng), 1))]
+        return [_registered(factors) for factors in built]
     prime = adversarial.certified_prime(bits, rng).n
     if role_name == "next_prime":
         return [prime - 2, prime - 1, 2**bits - 1]
@@ -92,6 +104,18 @@ def _step_inputs(role_name: str, bits: int, rng: random.Random) -> list[int]:
     half = adversarial.certified_prime(bits // 2, rng).n
     other = adversarial.certified_prime(bits - bits // 2, rng).n
     return [prime, half * other, half * half, 2**bits - 1, 2**bits + 1]
+
+
+def _registered(factors) -> int:
+    """The product of ``factors`` ((prime or certificate, exponent) pairs), registered for the
+    oracle when every prime is certified (primes below 2²⁴ by trial division)."""
+    pairs = tuple((p if isinstance(p, adversarial.PrimeCertificate) else adversarial.PrimeCertificate(p), e)
+                  for p, e in factors)
+    number = adversarial.ConstructedNumber(math.prod(c.n**e for c, e in pairs),
+                                           tuple(sorted(pairs, key=lambda pair: pair[0].n)))
+    if number.verify():
+        adversarial.register(number)
+    return number.n
 
 
 def _pseudoprime_inputs(role_name: str, n: int) -> list[int]:
@@ -103,7 +127,8 @@ def _steps(role_name: str, start: int, top_bits: int,
     """(bits, inputs) above ``start``, in increasing size; inputs are made when asked for,
     so that a climb stopped early does not pay for the certificates of larger steps."""
     sizes = [bits for bits in LADDER if bits <= top_bits and 2**bits > start]
-    pseudoprimes = _pseudoprimes_above(start)
+    # the arithmetic functions would need the factors of the pseudoprimes: not theirs to climb
+    pseudoprimes = _pseudoprimes_above(start) if role_name in ROLES else []
     steps = []
     for index, bits in enumerate(sizes):
         lower = 2**sizes[index - 1] if index else start
@@ -116,7 +141,7 @@ def _steps(role_name: str, start: int, top_bits: int,
 def climb(run, seed: int) -> None:
     """Ask the climbing points of a primality or factor role (``run``: the engine's run)."""
     role = run.role
-    if role.name not in ROLES:
+    if role.name not in ROLES + CONSTRUCTED_ROLES:
         return
     start = run.speed.largest()
     if start is None:

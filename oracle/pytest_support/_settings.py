@@ -49,6 +49,7 @@ PROFILE_NAMES = ("quick", "ci", "deep", "exhaustive")
 #: The roles of :mod:`oracle.roles`, by name (same remark).
 ROLE_NAMES = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
               "primes_in", "factor")
+ROLE_NAMES += ("mobius", "totient", "divisor_count", "divisor_sum")
 
 #: The conventions of :class:`oracle.roles.Conventions` and their values, first the default
 #: (same remark; tested to agree).

@@ -17,12 +17,15 @@ from .._errors import InvalidInputError
 from ._role import AbsurdAnswer, Conventions, Role, Verdict, WrongType
 from . import (factor, is_prime, next_prime, nth_prime, prev_prime, prime_pi, primes_in,
                twin_pi)
+from . import divisor_count, divisor_sum, mobius, totient
 
 __all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES", "ALIASES", "get", "infer"]
 
 #: Every role by name.
 ROLES: dict[str, Role] = {module.ROLE.name: module.ROLE for module in (
     prime_pi, twin_pi, nth_prime, is_prime, next_prime, prev_prime, primes_in, factor)}
+ROLES.update({module.ROLE.name: module.ROLE for module in (
+    mobius, totient, divisor_count, divisor_sum)})
 
 #: The other names a function may have for its role to be inferred (README, "Role names"):
 #: the role names written without underscores, and a few common spellings.  Nothing else is
@@ -36,6 +39,8 @@ ALIASES = {
     "prevprime": "prev_prime", "previous_prime": "prev_prime",
     "primesin": "primes_in", "primerange": "primes_in",
     "factorint": "factor", "factorize": "factor", "factorise": "factor",
+    "moebius": "mobius", "euler_phi": "totient", "num_divisors": "divisor_count",
+    "divisors_count": "divisor_count", "divisor_sigma": "divisor_sum", "sum_of_divisors": "divisor_sum",
 }
 
 

@@ -2,7 +2,9 @@
 
 A *role* is a function the harness knows how to check (docs/DESIGN.md, "Candidate
 conventions"): ``prime_pi``, ``twin_pi``, ``nth_prime``, ``is_prime``,
-``next_prime``, ``prev_prime``, ``primes_in`` and ``factor``.  Each role module
+``next_prime``, ``prev_prime``, ``primes_in`` and ``factor``, and the arithmetic
+functions ``mobius``, ``totient``, ``divisor_count`` and ``divisor_sum``
+(:mod:`oracle.roles._pointwise`).  Each role module
 builds one :class:`Role`; the role turns a raw answer into a canonical value
 (:meth:`Role.normalise`), judges it against the oracle (:meth:`Role.judge`),
 and may look across all answers of a run for broken identities

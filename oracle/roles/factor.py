@@ -10,7 +10,12 @@ twice in (p, e) pairs, pairs or a flat list out of order, entries with e = 0 --
 describe the same number, and code downstream that assumes the canonical form
 breaks on them (common practice).  Under a strict declared shape (``pairs``,
 ``flat``, ``mapping``) they are a failure; under ``any`` the answer is judged on
-its merged form and the verdict's detail carries a warning.  A factor 1 is not
+its merged form and the verdict's detail carries a warning.
+
+For n built from certified primes by the ``constructed`` family
+(:mod:`oracle.adversarial._constructed`) the answer must equal the construction's
+factorisation, which is proven at any size (provenance ``constructed: certified
+factors``): a composite factor that passes Baillie–PSW is caught there too.  A factor 1 is not
 an irregular form but a wrong answer (1 is not prime), under every shape.
 """
 
@@ -18,7 +23,7 @@ from __future__ import annotations
 
 from collections import Counter
 
-from .. import facade
+from .. import adversarial, facade
 from .._bounded import bounded_text
 from ._role import Conventions, Role, Verdict, WrongType, _shown, as_integer
 
@@ -108,10 +113,22 @@ def _judge(arguments: tuple, got: tuple, conventions: Conventions, budget: float
         return Verdict("factorization", False, expected, "definition", too_large)
     report = facade.verify_factorization(n, dict(got))
     details = list(report.problems)
+    built = adversarial.known(n)
+    if built is not None:       # n was built from certified primes: the truth is proven
+        passed = dict(got) == built.factorisation
+        if not passed and not details:
+            details.append("differs from the certified factorisation of the construction")
+        details.extend(_warning(got))
+        return Verdict("factorization", passed, expected, facade.CONSTRUCTED, "; ".join(details))
+    details.extend(_warning(got))
+    return Verdict("factorization", report.ok, expected, report.provenance, "; ".join(details))
+
+
+def _warning(got) -> list[str]:
     irregularities = getattr(got, "irregularities", ())
     if irregularities:
-        details.append("warning: non-canonical factorisation (" + "; ".join(irregularities) + ")")
-    return Verdict("factorization", report.ok, expected, report.provenance, "; ".join(details))
+        return ["warning: non-canonical factorisation (" + "; ".join(irregularities) + ")"]
+    return []
 
 
 ROLE = Role(
@@ -120,5 +137,5 @@ ROLE = Role(
     normalise=_normalise, judge=_judge, invalid_inputs=((0,), (-6,)),
     families=("exhaustive", "tables", "primes", "squares", "carmichael", "pseudoprimes",
               "semiprimes", "smooth", "certified", "boundaries", "uniform", "log-uniform",
-              "prime-powers", "mersenne-fermat", "factor-shapes", "trial-bounds"),
+              "prime-powers", "mersenne-fermat", "factor-shapes", "trial-bounds", "constructed"),
 )

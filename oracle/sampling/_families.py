@@ -13,8 +13,10 @@ size (``answer-words``), prime powers and their neighbours (``prime-powers``),
 neighbourhoods of published pseudoprimes (``pseudoprime-neighbours``), starts
 of the bound catalogue's ranges (``bound-starts``), sieve seams at primes
 (``sieve-seams``), Mersenne and Fermat numbers (``mersenne-fermat``),
-factorisation shapes by factor size (``factor-shapes``) and products of the
-primes next to common trial-division limits (``trial-bounds``).
+factorisation shapes by factor size (``factor-shapes``), products of the
+primes next to common trial-division limits (``trial-bounds``) and numbers
+built from certified primes, whose factorisation the oracle then knows at any
+size (``constructed``).
 """
 
 from __future__ import annotations
@@ -307,8 +309,8 @@ FACTOR_BITS = tuple(range(8, 41))
 
 
 def factor_shapes(ceiling, profile, rng) -> list[int]:
-    """For every factor size b of 8..40 bits, two of each: balanced p·q (both b bits),
-    unbalanced p·Q (p of b bits, Q as large as the ceiling allows), p² and p³ (b bits);
+    """For every factor size b of 8..40 bits, three of each: balanced p·q (both b bits),
+    unbalanced p·Q (p of b bits, Q as large as the ceiling allows), p², p³ and p⁴ (b bits);
     and numbers of three or more factors: p²·q·r and a smooth part times q·r with q, r
     consecutive primes (common practice: a factoriser drops a repeated prime, or its
     Pollard rho meets gcd = n on equal or close factors and loops)."""
@@ -317,9 +319,9 @@ def factor_shapes(ceiling, profile, rng) -> list[int]:
     top = ceiling.bit_length() - 1
     found = set()
     for bits in FACTOR_BITS:
-        for _ in range(2):
+        for _ in range(3):
             p = _random_prime(bits, rng)
-            found.update((p * _random_prime(bits, rng), p**2, p**3))
+            found.update((p * _random_prime(bits, rng), p**2, p**3, p**4))
             if top - bits >= 8:
                 found.add(p * _random_prime(top - bits, rng))
             q = _random_prime(max(bits // 2, 4), rng)
@@ -362,6 +364,42 @@ def _random_prime(bits: int, rng) -> int:
     return next_prime(rng.randrange(2**(bits - 1), 2**bits - 2**(bits - 2)))
 
 
+#: Sizes in bits of the constructed numbers of the sampled family (those up to the ceiling).
+CONSTRUCTED_BITS = (40, 48, 56, 64, 66, 80, 100, 128)
+
+
+def _constructed_shapes(bits: int) -> list[tuple[tuple[int, int], ...]]:
+    """(bits, exponent) of each prime of the shapes built at about ``bits`` bits in all."""
+    shapes = [((bits, 1),), ((bits // 2, 2),), ((bits // 3, 3),), ((20, 1), (bits - 20, 1)),
+              ((2, 5), (2, 3), (3, 1), (bits - 14, 1)),
+              ((14, 2), (16, 1), (bits - 44, 1)),
+              ((12, 1), (13, 1), (14, 1), (bits - 39, 1))]
+    return [shape for shape in shapes if shape[-1][0] >= 8]
+
+
+def constructed_at(bits: int, rng) -> list[int]:
+    """One number of each shape of :func:`constructed` at about ``bits`` bits, registered for
+    the oracle (:mod:`oracle.adversarial._constructed`)."""
+    return [adversarial.register(adversarial.construct(shape, rng)).n
+            for shape in _constructed_shapes(bits)]
+
+
+def constructed(ceiling, profile, rng) -> list[int]:
+    """Numbers built from a chosen factorisation of certified primes, registered for the
+    oracle (:mod:`oracle.adversarial._constructed`), at the sizes of
+    :data:`CONSTRUCTED_BITS` up to the ceiling; above it the climb by bit size builds them
+    up to 2²⁰⁴⁸ (:mod:`oracle.engine._reach_bits`).  Shapes per size: a prime P, p², p³,
+    q·P, 2^a·3^b·r·P, q²·r·P and q·r·s·P with q, r, s of 12-20 bits -- at most one large
+    prime or prime power, so that a correct candidate with a good factoriser answers in
+    milliseconds, while float arithmetic (exact only below 2⁵³) and 64-bit words go wrong
+    on them (common practice)."""
+    found = set()
+    for bits in CONSTRUCTED_BITS:
+        if 2**bits <= ceiling:
+            found.update(constructed_at(bits, rng))
+    return _below(found, ceiling)
+
+
 def uniform(ceiling, profile, rng) -> list[int]:
     return [rng.randrange(0, ceiling + 1) for _ in range(profile.random_points)]
 
@@ -383,6 +421,7 @@ FAMILIES = {
     "sieve-seams": sieve_seams, "sieving-prime-intervals": sieving_prime_intervals,
     "mersenne-fermat": mersenne_fermat, "factor-shapes": factor_shapes,
     "trial-bounds": trial_bounds,
+    "constructed": constructed,
 }
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",

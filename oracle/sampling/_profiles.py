@@ -73,6 +73,9 @@ _PRIMALITY_CEILING = 2**64 + 2**20
 _CI_CEILINGS = {"prime_pi": 2**32 + 2**20, "twin_pi": 2**32 + 2**20, "nth_prime": 2**28,
                 "is_prime": 2**128, "next_prime": _PRIMALITY_CEILING,
                 "prev_prime": _PRIMALITY_CEILING, "primes_in": 2**64, "factor": 2**66}
+#: The arithmetic functions factor n, as the factor role does (constructed points go higher).
+_CI_CEILINGS.update({"mobius": 2**66, "totient": 2**66, "divisor_count": 2**66,
+                     "divisor_sum": 2**66})
 #: About 6-8 calls near 2³² for the counting roles, 8 near 2²⁸ for nth_prime, 5 intervals
 #: near 2⁶⁴ for primes_in (primesieve needs about 2 s for one of those).
 _CI_HEAVY_BUDGET = {"prime_pi": 8 * 2**32, "twin_pi": 6 * 2**32, "nth_prime": 8 * 2**28,

@@ -74,6 +74,8 @@ def _split(n, found, rng):
 
 
 def factor(n):
+    if n < 1:
+        raise ValueError("factor(n) needs n >= 1")
     found = {}
     for p in range(2, 1000):
         while n % p == 0:

@@ -61,9 +61,28 @@ class EasyLeaves:
         split = x64 // (y + 1) // p                           # q <= split  <=>  v > y
         self.split = np.clip(pi[np.minimum(split, y)].astype(np.int64), self.low, self.high)
         self.segmented = np.flatnonzero(self.split > self.low)
+        self.lookups = 0                    # values v looked up in prime segments so far
 
-    def table_part(self) -> int:
+    def table_rows_by_cost(self, pieces: int) -> list[tuple[int, int]]:
+        """Runs ``[first, stop)`` of the primes ``p`` whose table parts cost about the same.
+
+        A row of ``k`` leaves costs about ``min(k, sqrt(x / p))`` look-ups
+        (the hyperbola method of :meth:`table_part`).
+        """
+        counts = (self.high - self.split).astype(np.float64)
+        cost = np.minimum(counts, np.sqrt(float(self.t.x) / self.p.astype(np.float64)))
+        cumulative = np.cumsum(cost)
+        if cost.size == 0 or cumulative[-1] <= 0:
+            return [(0, cost.size)]
+        targets = cumulative[-1] * np.arange(1, pieces) / pieces
+        ends = sorted({int(e) for e in np.searchsorted(cumulative, targets) + 1} - {0, cost.size})
+        bounds = [0] + ends + [cost.size]
+        return list(zip(bounds[:-1], bounds[1:]))
+
+    def table_part(self, first: int = 0, stop: int | None = None) -> int:
         """Easy leaves with ``v <= y``: ``sum (pi(v) - b + 1)`` from the pi table.
+
+        Only the primes ``p = self.p[first:stop]`` when given (a worker's share).
 
         For one ``p`` put ``N = x // p``; the leaves are ``pi(N // q)`` over a run of
         primes ``q``.  Below ``sqrt(N)`` they are summed directly; above, the
@@ -74,6 +93,10 @@ class EasyLeaves:
         """
         t = self.t
         counts = self.high - self.split
+        if first or stop is not None:
+            share = np.zeros(counts.size, dtype=bool)
+            share[first:stop] = True
+            counts = np.where(share, counts, 0)
         total = exact_sum((1 - self.b) * counts, t.a * t.y)
         rows = np.flatnonzero(counts > 0)
         quotient = np.int64(t.x) // self.p[rows]                   # N = x // p
@@ -128,6 +151,7 @@ class EasyLeaves:
         last = np.minimum(self.split[chosen], pi[np.minimum(x64 // segment.lo // p, t.y)])
         counts = np.maximum(last - first, 0)
         total = exact_sum((1 - self.b[chosen]) * counts, t.a * t.y)
+        self.lookups += int(counts.sum())
         for start, stop in chunks_by_total(counts, PAIRS_PER_BATCH):
             if not counts[start:stop].any():
                 continue

@@ -18,6 +18,12 @@ over from earlier segments plus a prefix count in the current one.
 Time ``O(z log log z)`` for the sieving, ``O(segment / 768)`` per prime and
 segment for the counts, ``O(1)`` (vectorised) per leaf; memory ``O(y + segment)``.
 Valid for ``x <= 10**18``.
+
+A run may start at a later segment (``start > 0``, for a worker process, see
+:mod:`._parallel`).  The counts ``phi(start - 1, b)`` carried over from the
+segments before are then unknown, and each enters the sum linearly: such a run
+starts them at 0 and records in ``weights[b]`` the signed number of leaves of
+``b`` it saw, so that the true sum is ``total + sum_b phi(start - 1, b) weights[b]``.
 """
 
 from __future__ import annotations
@@ -54,7 +60,8 @@ def _last_hard_index(tables: LeafTables) -> int:
 class HardLeaves:
     """Sum of the hard special leaves, computed one sieve segment at a time."""
 
-    def __init__(self, tables: LeafTables):
+    def __init__(self, tables: LeafTables, earlier: tuple[tuple[int, int], ...] = ()):
+        """Sum the leaves of the segments after ``earlier``, the ``(lo, hi)`` that cover ``[0, start)``."""
         self.t = tables
         self.last_b = _last_hard_index(tables)
         self.root_y = isqrt(tables.y)
@@ -75,6 +82,14 @@ class HardLeaves:
         self.active_top = tables.c - 1         # the active b form [c, active_top]
         self.pi_before = 0                     # pi(lo - 1), kept while activations remain
         self.total = 0
+        if earlier:
+            # The b activated by the segments before start: their counts are carried in.
+            for lo, hi in earlier:
+                self.active_top = max(self.active_top, self._top_for_segment(lo, hi))
+            if self.active_top < self.last_b:
+                self.pi_before = count_primes_between(0, earlier[-1][1] - 1)
+        self.inherited_top = self.active_top   # phi(start - 1, b) unknown for b <= this
+        self.weights = [0] * count             # signed leaf counts of those b
 
     def _top_for_segment(self, lo: int, hi: int) -> int:
         """The largest ``b`` whose hard leaves can lie in ``[lo, hi)`` or later."""
@@ -131,8 +146,11 @@ class HardLeaves:
             values, plus = self._leaf_values(b, lo, hi)
             if values.size:
                 counts = sieve.count_up_to(values)              # each <= hi - lo
+                signed_leaves = 2 * plus - values.size
                 self.total += (exact_sum(counts[:plus], hi - lo) - exact_sum(counts[plus:], hi - lo)
-                               + self.phi_before[b] * (2 * plus - values.size))
+                               + self.phi_before[b] * signed_leaves)
+                if b <= self.inherited_top:
+                    self.weights[b] += signed_leaves
             self.phi_before[b] += sieve.survivors()
             if b < top:
                 sieve.remove_multiples(int(t.primes[b]))
