@@ -17,7 +17,6 @@ import sys
 import time
 
 from ._errors import InvalidInputError, OracleError, OutOfReachError
-from ._bounded import bounded_text
 from ._integers import parse_integer
 from ._options import (MAX_SEED, check_output_file, check_output_folder, integer_option,
                        memory_option, remove_folders, seconds_option)
@@ -25,10 +24,15 @@ from ._options import (MAX_SEED, check_output_file, check_output_folder, integer
 EXIT_OK, EXIT_FAILED, EXIT_USAGE, EXIT_OUT_OF_REACH, EXIT_INTERNAL, EXIT_NO_VERDICT = 0, 1, 2, 3, 4, 5
 EXIT_INTERRUPTED = 130
 
-VALUE_FUNCTIONS = ("pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
-                   "triplets_026", "triplets_046", "quadruplets")
-VALUE_FUNCTIONS += ("prime_sum", "mertens", "squarefree_count")
-VALUE_FUNCTIONS += ("mobius", "totient", "divisor_count", "divisor_sum")
+#: ``ntoracle value`` answers the roles under their own names, and the short names of the facade.
+VALUE_FUNCTIONS = ("prime_pi", "twin_pi", "nth_prime", "is_prime", "next_prime", "prev_prime",
+                   "factor", "primes_in", "mobius", "totient", "divisor_count", "divisor_sum",
+                   "prime_sum", "mertens", "squarefree_count",
+                   "pi", "triplets_026", "triplets_046", "quadruplets")
+# The facade's name of each role's question, where it differs from the role's name.
+_FACADE_NAMES = {"prime_pi": "pi", "primes_in": "primes", "factor": "factorization"}
+# Most primes ``value primes_in`` prints as text (--json prints every one).
+_LISTED_PRIMES = 1000
 BOUND_FUNCTIONS = ("pi", "nth_prime", "twin_pi")
 
 CAUTION = ("Cautions: a 'probable' verdict (Baillie-PSW) is not a proof of primality; "
@@ -54,8 +58,10 @@ def build_parser() -> argparse.ArgumentParser:
     value = commands.add_parser("value", help="an exact value with its provenance",
                                 description="Print an exact value and how it was obtained.")
     value.add_argument("function", choices=VALUE_FUNCTIONS, metavar="FUNC",
-                       help="one of: " + ", ".join(VALUE_FUNCTIONS))
-    value.add_argument("n", metavar="N", help="an integer: 123, 1_000, 10**14, 2**64-1, 1e12")
+                       help="one of: " + ", ".join(VALUE_FUNCTIONS)
+                            + " (pi is prime_pi; primes_in takes A B, the primes of [A, B])")
+    value.add_argument("n", metavar="N", nargs="+",
+                       help="an integer: 123, 1_000, 10**14, 2**64-1, 1e12")
     value.add_argument("--json", action="store_true", help="print one JSON object")
     value.add_argument("--budget", type=seconds_option("--budget"), default=None, metavar="SECONDS",
                        help="refuse (exit 3) rather than compute longer than this")
@@ -260,7 +266,13 @@ _PROGRESS_STEPS = 1000
 def _value(arguments) -> int:
     from . import facade
 
-    n = parse_integer(arguments.n)
+    function = _FACADE_NAMES.get(arguments.function, arguments.function)
+    arity = facade.FUNCTIONS[function]
+    if len(arguments.n) != arity:
+        raise InvalidInputError(f"value {arguments.function} takes {arity} integer(s), "
+                                f"got {len(arguments.n)}")
+    numbers = [parse_integer(text) for text in arguments.n]
+    call = f"{arguments.function}({', '.join(map(str, numbers))})"
     if arguments.budget is not None and not arguments.budget > 0:
         raise InvalidInputError(f"--budget {arguments.budget}: must be a positive number of seconds")
     import contextlib
@@ -273,17 +285,40 @@ def _value(arguments) -> int:
                 from . import report
 
                 shown.append(stack.enter_context(report.Progress(
-                    total=_PROGRESS_STEPS, description=f"{arguments.function}({n})")))
+                    total=_PROGRESS_STEPS, description=call)))
             shown[0].advance(max(0, round(fraction * _PROGRESS_STEPS) - shown[0].completed))
 
-        result = facade.answer(arguments.function, n, budget=arguments.budget, progress=progress)
+        options = {"progress": progress} if function in ("pi", "nth_prime") else {}
+        if function not in ("is_prime", "next_prime", "prev_prime", "primes"):
+            options["budget"] = arguments.budget
+        try:
+            result = facade.answer(function, *numbers, **options)
+        except OutOfReachError as error:
+            if function != "factorization" and function not in facade.MULTIPLICATIVE:
+                raise
+            raise OutOfReachError(str(error).replace("factorization(", "factor(", 1)
+                                  + "; a larger --budget may reach it") from None
     if arguments.json:
-        print(json.dumps(result.as_dict()))
+        answer = result.as_dict()
+        answer["function"] = arguments.function
+        print(json.dumps(answer))
     else:
-        print(f"{arguments.function}({n}) = {_show(result.value)}    [{result.provenance}]")
-        if result.provenance.endswith("probable"):
+        print(f"{call} = {_value_text(function, result.value)}    [{result.provenance}]")
+        if "probable" in result.provenance:
             print("note: 'probable' means Baillie-PSW: not a proof of primality.")
     return EXIT_OK
+
+
+def _value_text(function: str, value) -> str:
+    """An answer of ``value`` as text: a factorisation as p^e * q, a long list of primes cut."""
+    if function == "factorization":
+        return " * ".join(f"{p}^{e}" if e > 1 else str(p) for p, e in value) or "1 (no prime factor)"
+    if function == "primes":
+        shown = ", ".join(map(str, value[:_LISTED_PRIMES]))
+        if len(value) > _LISTED_PRIMES:
+            shown += f", ... {len(value) - _LISTED_PRIMES} more ({len(value)} primes; --json lists all)"
+        return f"[{shown}]"
+    return _show(value)
 
 
 def _bounds(arguments) -> int:
@@ -551,6 +586,12 @@ def _replay(arguments) -> int:
     groups = _replay_groups(arguments.file)
     if arguments.role:
         groups = {key: points for key, points in groups.items() if key[2] == arguments.role}
+    given = arguments.target or arguments.exec_command
+    roles_in_file = sorted({role for _, _, role in groups})
+    if given and len(roles_in_file) > 1:
+        raise InvalidInputError(
+            f"{arguments.file} holds entries of {len(roles_in_file)} roles "
+            f"({', '.join(roles_in_file)}); a given target plays one: pass --role ROLE")
     if not groups:
         print(f"{arguments.file}: no recorded failures to replay"
               + (f" of role {arguments.role}" if arguments.role else ""))
@@ -617,66 +658,17 @@ def _replay_groups(path: str) -> dict:
 
 
 def _describe(failure: dict) -> str:
-    call = ", ".join(str(a) for a in failure["arguments"])
-    text = f"[{failure['status']}] {failure['check']} at ({call}) [{failure['family']}]"
-    if failure["status"] in ("wrong", "nondeterministic"):
-        from .report._describe import show_value
+    from .report import finding_line
 
-        got = show_value(failure["got"], 80)
-        expected = show_value(failure["expected"], 80)
-        text += f": got {got}, expected {expected} [{failure['provenance']}]"
-    if failure.get("detail") and not str(failure["detail"]).startswith("got "):
-        text += f" -- {bounded_text(failure['detail'], 160)}"
-    return text
+    return finding_line(failure)
 
 
 def _print_summary(summary: dict, listed: int = 20) -> None:
-    """The verdict, the first ``listed`` findings, the first divergence, skips and timings."""
-    failures = summary["failures"]
-    from .engine import SKIPS_KEEPING_COMPLETE
+    """The verdict, the first ``listed`` findings, the first divergence, skips, reach and timings
+    (:func:`oracle.report.summary_lines`, the same text as report.txt), then the cautions."""
+    from .report import summary_lines
 
-    verdict = {"passed": "PASSED", "failed": "FAILED"}.get(summary["verdict"], "NO VERDICT")
-    reservations = []
-    if summary.get("interrupted"):
-        reservations.append(f"run interrupted ({summary['interrupted']})")
-    elif not summary["ended"]:
-        reservations.append("the results have no end record")
-    if summary["not_run"]:
-        reasons = "; ".join(reason for reason in summary["skipped"]
-                            if reason not in SKIPS_KEEPING_COMPLETE)
-        reservations.append(f"{summary['not_run']} point(s) not run: {reasons}")
-    if summary.get("garbled_lines"):
-        reservations.append(f"{summary['garbled_lines']} garbled line(s) skipped")
-    if summary.get("tampered"):
-        reservations.append("the candidate changed the harness it ran in ("
-                            + ", ".join(summary["tampered"][:3])
-                            + (", ..." if len(summary["tampered"]) > 3 else "")
-                            + "): every check of this run is void; audit it isolated (the default)")
-    print(f"{verdict}: {summary['passed_checks']} of {summary['checks']} checks passed, "
-          f"{len(failures)} finding(s)" + "".join(f" -- {r}" for r in reservations))
-    for failure in failures[:listed]:
-        print("  " + _describe(failure))
-    if len(failures) > listed:
-        print(f"  ... and {len(failures) - listed} more (see the results file)")
-    divergence = summary["first_divergence"]
-    if divergence:
-        where = divergence.get("prime", divergence.get("input"))
-        print(f"{divergence['kind']}: {where}"
-              + (f" (last agreeing: {divergence['last_agreeing']})" if "last_agreeing" in divergence else "")
-              + (f"; got {bounded_text(divergence.get('got'), 80)}, "
-                 f"expected {bounded_text(divergence.get('expected'), 80)}"
-                 if "got" in divergence else "")
-              + (f" [{divergence['provenance']}]" if divergence.get("provenance") else ""))
-    for reason, count in summary["skipped"].items():
-        print(f"skipped {count} point(s): {reason} (not counted as passed)")
-    from .report._terminal import reach_lines
-
-    for line in reach_lines(summary)[:6]:
-        print(line)
-    timings = summary["timings"]
-    first = timings["first_finding_seconds"]
-    print(f"time: {timings['total_seconds']:.2f} s"
-          + (f"; first finding after {first:.3f} s" if first is not None else ""))
+    print("\n".join(summary_lines(summary, listed)))
     print(CAUTION)
 
 
@@ -735,7 +727,9 @@ def _store(arguments) -> int:
 
 
 def _show(value) -> str:
-    return str(value).lower() if isinstance(value, bool) else str(value)
+    from .report import show_value
+
+    return show_value(value, 10**6)
 
 
 def _version() -> str:

@@ -312,7 +312,7 @@ def primes_in(a, b):
 @pytest.mark.parametrize("function, shown", [
     ("prime_pi", "got an integer of 100001 digits"),       # 10**100000 + x: 100001 digits
     ("is_prime", f"({3 + 10 * 2**20} characters)"),
-    ("primes_in", "(10000000 items in all)"),
+    ("primes_in", " of 10000000 items)"),
 ])
 def test_huge_answers_are_shown_cut_in_the_terminal_and_stored_bounded(capsys, in_tmp, function,
                                                                         shown):
@@ -358,3 +358,40 @@ def test_absurd_factorisations_are_wrong_answers_not_errors(capsys, in_tmp, func
     assert code == 1, err
     assert "[wrong] factorization at (2)" in out and detail in out
     assert max(len(line) for line in (in_tmp / "r.jsonl").read_bytes().splitlines()) < 64 * 2**10
+
+
+# --- role inference only from exact names and the listed aliases (issue 12 item 5) ------------
+
+@pytest.mark.parametrize("target", ["_candidates:prime_pi_exclusive", "_candidates:nth_prime_zero_based",
+                                    "sympy:prime", "sympy:primepi_but_not"])
+def test_a_name_that_is_no_role_or_alias_is_a_usage_error_asking_for_role(capsys, in_tmp, target):
+    code, out, err = run(capsys, "audit", target, "--profile", "quick", "--seed", "1", "--no-corpus")
+    assert code == 2 and "--role" in err and "cannot infer" in err
+    assert not (in_tmp / ".ntoracle" / "runs").exists() or not list((in_tmp / ".ntoracle" / "runs").iterdir())
+
+
+def test_an_exec_target_named_after_no_role_needs_role(capsys, in_tmp):
+    code, _, err = run(capsys, "audit", "--exec", f"{sys.executable} -c pass", "--profile", "quick")
+    assert code == 2 and "--role" in err
+
+
+def _two_role_corpus(path):
+    path.write_text(
+        "regressions:\n"
+        "- {role: prime_pi, arguments: [1000], target: '_candidates:prime_pi_exclusive', kind: python}\n"
+        "- {role: is_prime, arguments: [341], target: '_candidates:is_prime_fermat', kind: python}\n")
+
+
+def test_replay_role_selects_one_role_of_a_corpus(capsys, in_tmp):
+    _two_role_corpus(in_tmp / "corpus.yaml")
+    code, out, _ = run(capsys, "replay", "corpus.yaml", "--role", "is_prime")
+    assert code == 1 and "as is_prime: 1 recorded input(s), 1 still failing" in out
+    assert "prime_pi" not in out.replace("is_prime", "")
+    code, out, _ = run(capsys, "replay", "corpus.yaml", "_candidates:is_prime", "--role", "is_prime")
+    assert code == 0 and "0 still failing" in out
+
+
+def test_replay_with_a_target_refuses_a_corpus_of_several_roles(capsys, in_tmp):
+    _two_role_corpus(in_tmp / "corpus.yaml")
+    code, out, err = run(capsys, "replay", "corpus.yaml", "_candidates:is_prime")
+    assert code == 2 and "--role" in err and "prime_pi" in err and "is_prime" in err

@@ -464,7 +464,7 @@ def test_huge_answers_in_hand_written_checks_fail_with_a_bounded_message(project
     output = result.stdout.str()
     assert "prime_pi(1000000): wrong (size)" in output and "an integer of 100001 digits" in output
     assert "is_prime(7): wrong-type (type)" in output and "(10485760 characters)" in output
-    assert "primes_in(0, 10): wrong (listing)" in output and "(100000 items in all)" in output
+    assert "primes_in(0, 10): wrong (listing)" in output and "of 100000 items)" in output
     assert max(len(line) for line in output.splitlines()) < 1000
 
 
@@ -876,3 +876,29 @@ def test_bundled_item_ids_are_unique_for_every_role(project):
     ids = [line for line in collected.outlines if line.startswith("ntoracle::")]
     assert len(ids) > 50 and len(ids) == len(set(ids))
     assert {line.split("::")[1] for line in ids} == set(_settings.ROLE_NAMES)
+
+
+def test_failure_text_writes_values_with_the_shared_renderer(project):
+    # issue 12 item 6: true/false as everywhere else; a long list shown around its first
+    # difference, so got and expected never show the same prefix
+    project.makepyfile(test_render='''
+        import sympy
+
+        PRIMES = [int(p) for p in sympy.primerange(2, 401)]       # sympy, test-only reference
+
+        def test_boolean(ntoracle_check):
+            ntoracle_check.answer("is_prime", 561, True)           # OEIS A002997: Carmichael
+
+        def test_listing(ntoracle_check):
+            ntoracle_check("primes_in", lambda a, b: PRIMES[:40] + PRIMES[41:], [(2, 400)])
+    ''')
+    result = project.runpytest(*PLUGIN, "--ntoracle-seed", "3")
+    result.assert_outcomes(failed=2)
+    result.stdout.fnmatch_lines(["*is_prime(561): wrong (exact)", "    got:        true",
+                                 "    expected:   false"])
+    output = result.stdout.str()
+    assert "True" not in output.replace("assert True", "")
+    got = next(line for line in output.splitlines() if line.startswith("    got:        [..."))
+    expected = next(line for line in output.splitlines() if line.startswith("    expected:   [..."))
+    assert "179" not in got and "179" in expected           # the 41st prime, lost (sympy.prime(41))
+    assert ",," not in got + expected and got[16:] != expected[16:]

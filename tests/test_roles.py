@@ -26,18 +26,23 @@ def test_registry_has_the_sums_of_issue_15():
                                 "triplet_pi_046", "quadruplet_pi"}
 
 
-@pytest.mark.parametrize("name, role", [("prime_pi", "prime_pi"), ("my_prime_pi", "prime_pi"),
-                                        ("my_twin_pi", "twin_pi"), ("primepi", "prime_pi"),
-                                        ("factorint", "factor"), ("fast_is_prime", "is_prime"),
-                                        ("nextprime", "next_prime")])
-def test_role_inferred_from_function_name(name, role):
+@pytest.mark.parametrize("name, role", [("prime_pi", "prime_pi"), ("twin_pi", "twin_pi"),
+                                        ("primepi", "prime_pi"), ("factorint", "factor"),
+                                        ("nextprime", "next_prime"), ("primerange", "primes_in")])
+def test_role_inferred_from_a_role_name_or_a_listed_alias(name, role):
     assert roles.infer(name) == role
 
 
-@pytest.mark.parametrize("name", ["frobnicate", "sum_of_squares"])
-def test_role_not_inferred_raises(name):
+@pytest.mark.parametrize("name", ["frobnicate", "sum_of_squares", "my_prime_pi", "fast_is_prime",
+                                  "_small_primes", "prime", "primes", "pi", "Prime_Pi"])
+def test_role_not_inferred_from_other_names(name):
     with pytest.raises(InvalidInputError, match="--role"):
         roles.infer(name)
+
+
+def test_every_alias_names_a_role():
+    assert set(roles.ALIASES.values()) <= set(roles.ROLES)
+    assert not set(roles.ALIASES) & set(roles.ROLES)
 
 
 def test_prime_pi_exact_at_published_value():

@@ -70,11 +70,12 @@ from .. import roles as roles_module
 from .. import sampling
 from .._errors import InvalidInputError, OracleError, OutOfReachError
 from .._bounded import bounded_text
-from ..roles import AbsurdAnswer, Conventions, Role, WrongType
+from ..roles import Conventions, Role, WrongType
 from ..targets import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT
 from ..targets._worker import Overlong, Oversized, contains_oversized
 from . import _reach, _reach_bits, _timeouts
 from ._corpus import load_corpus, record_failures
+from ._point import SIZE_CHECK, normalise_answer
 from ._records import RecordStream, failure_statuses, jsonable, summarise
 from ._speed import SpeedModel
 
@@ -292,15 +293,14 @@ class _Run:
             return self.record("wrong", "size", family, arguments, got=shown,
                                expected="an answer of ordinary size", provenance="definition",
                                detail=f"returned {shown}", seconds=result.seconds)
-        try:
-            value = role.normalise(result.value, conventions)
-        except AbsurdAnswer as error:       # an integer too large to be any answer: wrong
+        value, refused = normalise_answer(role, result.value, conventions)
+        if refused is not None and refused.check == SIZE_CHECK:     # too large to be any answer
             return self.record("wrong", "size", family, arguments, got=bounded_text(result.value, 200),
-                               expected="an integer of at most about 4010 digits",
-                               provenance="definition", detail=str(error), seconds=result.seconds)
-        except WrongType as error:
+                               expected=refused.expected, provenance="definition",
+                               detail=refused.detail, seconds=result.seconds)
+        if refused is not None:
             return self.record("wrong-type", "type", family, arguments,
-                               got=bounded_text(result.value, 200), detail=str(error),
+                               got=bounded_text(result.value, 200), detail=refused.detail,
                                seconds=result.seconds)
         try:
             if self.memory is None:

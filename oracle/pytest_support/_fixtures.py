@@ -59,33 +59,28 @@ class Checker:
         return summary
 
     def answer(self, role: str, arguments, got, *, conventions: dict | None = None) -> dict:
-        from .. import roles
         from .._bounded import bounded_text, bounded_value
-        from .._errors import OutOfReachError
+        from ..engine import judge_point
+        from ..engine._point import SIZE_CHECK, WRONG_TYPE_CHECK
 
-        chosen = roles.get(role)
-        rules = roles.Conventions(**(conventions or {}))
         arguments = tuple(arguments) if isinstance(arguments, (tuple, list)) else (arguments,)
-        failure = {"arguments": list(arguments), "family": "answer", "provenance": "", "got": None,
-                   "expected": None, "detail": ""}
-        try:
-            value = chosen.normalise(got, rules)
-        except roles.WrongType as error:
-            status, check = ("wrong", "size") if isinstance(error, roles.AbsurdAnswer) else ("wrong-type", "type")
-            failure.update(status=status, check=check, got=bounded_text(got, 200),
-                           detail=bounded_text(str(error)))
+        verdict = judge_point(role, arguments, got, conventions=conventions)
+        if not verdict.reach:
+            pytest.skip(f"{role}{arguments}: no reference within the oracle's reach"
+                        + (f": {verdict.detail}" if verdict.detail else ""))
+        if verdict.passed:
+            return {"passed": True, "checks": 1, "failures": []}
+        failure = {"arguments": list(arguments), "family": "answer", "check": verdict.check,
+                   "provenance": verdict.provenance, "detail": bounded_text(verdict.detail)}
+        if verdict.check in (WRONG_TYPE_CHECK, SIZE_CHECK):
+            failure.update(status="wrong-type" if verdict.check == WRONG_TYPE_CHECK else "wrong",
+                           got=bounded_text(got, 200), expected=None, provenance="")
         else:
-            try:
-                verdict = chosen.judge(arguments, value, rules, 10.0)
-            except OutOfReachError as error:
-                pytest.skip(f"{role}{arguments}: out of the oracle's reach: {error}")
-            if not verdict.reach:
-                pytest.skip(f"{role}{arguments}: no reference within the oracle's reach")
-            if verdict.passed:
-                return {"passed": True, "checks": 1, "failures": []}
-            failure.update(status="wrong", check=verdict.check, got=bounded_value(value),
-                           expected=bounded_value(verdict.expected), provenance=verdict.provenance,
-                           detail=bounded_text(verdict.detail))
+            from .. import roles
+
+            value = roles.get(role).normalise(got, roles.Conventions(**(conventions or {})))
+            failure.update(status="wrong", got=bounded_value(value),
+                           expected=bounded_value(verdict.expected))
         summary = {"passed": False, "checks": 1, "failures": [failure], "first_divergence": None,
                    "skipped": {}}
         pytest.fail(failure_message(summary, role=role, target="the answer given", case="answer",

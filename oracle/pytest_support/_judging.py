@@ -1,13 +1,11 @@
 """Ask a target at one group of points and judge the answers with the audit engine.
 
-The judging is the engine's own (:mod:`oracle.engine._audit`): the same
+The judging is the engine's own (:mod:`oracle.engine`): the same
 normalisation, the same verdicts, the same first divergence (bisection for
 counting roles between the group's largest agreeing and smallest failing
 point), the same summary (docs/DESIGN.md, ``audit --json``).  Valid points go
-through the public :func:`oracle.engine.run_audit` with ``only=points``.
-Inputs outside a role's domain are judged by the engine's run object
-(``_Run.ask_invalid``) -- a private helper, used read-only because the engine
-has no public entry for it yet.
+through the public :func:`oracle.engine.run_audit` with ``only=points``, inputs
+outside a role's domain through :func:`oracle.engine.audit_invalid_inputs`.
 """
 
 from __future__ import annotations
@@ -15,7 +13,7 @@ from __future__ import annotations
 import time
 from typing import Callable
 
-from ..engine import AuditOptions, run_audit
+from ..engine import AuditOptions, audit_invalid_inputs, run_audit
 from ..roles import Conventions
 from ..targets import OK, RAISED, CallResult
 
@@ -35,28 +33,11 @@ def judge_invalid_inputs(target, *, role: str, profile: str, seed: int,
                          points: list[tuple[int, ...]], timeout: float | None = None,
                          conventions: dict | None = None, stream: str | None = None) -> dict:
     """The summary of ``target`` asked at inputs outside the role's domain: a hang or a crash
-    is a finding; an answer is one only under the convention ``invalid_input: raise``."""
-    from .. import sampling
-    from ..engine import _audit
-    from ..engine._records import RecordStream, summarise
-
-    chosen = sampling.profile(profile)
-    options = AuditOptions(role=role, profile=profile, seed=seed,
-                           timeout=timeout if timeout is not None else chosen.timeout,
+    is a finding; an answer is one only under the convention ``invalid_input: raise``
+    (:func:`oracle.engine.audit_invalid_inputs`)."""
+    options = AuditOptions(role=role, profile=profile, seed=seed, timeout=timeout,
                            conventions=Conventions(**(conventions or {})), stream=stream)
-    records = RecordStream(stream)
-    run = _audit._Run(target, options, records)
-    try:
-        records.write({"type": "start", "target": target.description, "role": role,
-                       "profile": chosen.name, "seed": seed, "timeout": options.timeout,
-                       "maximum": None, "isolated": target.isolated,
-                       "conventions": vars(options.conventions), "elapsed": 0.0})
-        run.ask_invalid([("invalid-input", tuple(point)) for point in points])
-        run.write_skipped()
-        records.write({"type": "end", "elapsed": run.elapsed()})
-    finally:
-        records.close()
-    return summarise(records.records)
+    return audit_invalid_inputs(target, options, points)
 
 
 class CallableTarget:

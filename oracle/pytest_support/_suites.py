@@ -14,7 +14,8 @@ A suite is one YAML mapping (read with PyYAML's safe loader)::
       - name: small                   # unique within the suite; used in test ids
         values: [0, 1, 2, 10**6]      # explicit points ([a, b] pairs for primes_in)
       - name: low
-        range: {start: 0, stop: profile, segment: 1000}
+        range: {start: 0, stop: profile}
+        segment: 1000                 # optional, any case: points per test item
                                       # every x in [start, stop]; stop "profile" is the
                                       # profile's exhaustive limit; for primes_in windows
                                       # [a, a + width - 1] tiling the range (width 1000)

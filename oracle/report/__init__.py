@@ -14,7 +14,10 @@
 * :func:`write_html` -- one self-contained HTML file with embedded plots;
 * :func:`table_summary_lines` and :func:`write_table_html` -- the terminal summary and the
   same kind of page for a judged table of claims;
-* :func:`reproduce_command` -- the ``ntoracle audit`` command that repeats a run.
+* :func:`reproduce_command` -- the ``ntoracle audit`` command that repeats a run;
+* :func:`show_value`, :func:`show_pair`, :func:`got_expected` -- the one way values are
+  written (booleans, long lists around their first difference, huge integers counted);
+* :func:`summary_lines` -- the one text summary of an audit (terminal, report.txt, HTML).
 
 Every report carries :data:`CAUTIONS`: a probable prime is not a proven prime;
 passing is evidence, not a certificate; for cryptographic use defer to the
@@ -27,9 +30,12 @@ from ._html import write_html
 from ._json import OPTIONAL_KEYS, SUMMARY_KEYS, write_json
 from ._reproduce import reproduce_command
 from ._table_html import write_table_html
+from ._summary_text import divergence_line, finding_line, summary_lines, verdict_line
 from ._table_text import table_summary_lines
+from ._values import got_expected, show_pair, show_value
 from ._terminal import Progress, summary_table
 
 __all__ = ["Progress", "summary_table", "write_json", "SUMMARY_KEYS", "OPTIONAL_KEYS",
            "write_html", "write_table_html", "table_summary_lines", "reproduce_command",
-           "describe_divergence", "CAUTIONS"]
+           "describe_divergence", "CAUTIONS", "summary_lines", "verdict_line", "finding_line",
+           "divergence_line", "show_value", "show_pair", "got_expected"]

@@ -2,49 +2,10 @@
 
 from __future__ import annotations
 
-import json
-import re
+from ._values import VALUE_LIMIT, got_expected, show_value
 
-from .._bounded import bounded_text, bounded_value
-
-__all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of", "VERDICT_CLASSES"]
-
-#: Longest text shown for one value; longer ones are cut and say how long they were.
-VALUE_LIMIT = 160
-
-
-def show_value(value: object, limit: int = VALUE_LIMIT) -> str:
-    """``value`` as compact text (JSON for lists and mappings), cut to ``limit`` characters."""
-    if value is None:
-        return ""
-    if isinstance(value, str):
-        text = value
-    elif isinstance(value, bool):
-        text = "true" if value else "false"
-    elif isinstance(value, (list, dict)):
-        text = json.dumps(bounded_value(value), separators=(",", ":"))
-    else:
-        text = bounded_text(value, max(limit, 40))
-    if len(text) > limit:
-        return f"{text[:limit]}... ({_whole_size(value, text)})"
-    return text
-
-
-_CUT_TEXT = re.compile(r"\.\.\. \((\d+ (?:characters|digits))\)\Z")
-_CUT_LIST = re.compile(r"\.\.\. and \d+ more \((\d+) in all\)\Z")
-
-
-def _whole_size(value: object, text: str) -> str:
-    """How large the candidate's value was: a text or listing already cut when it was recorded
-    (oracle._bounded) says so at its end; otherwise the length of ``text``."""
-    if isinstance(value, str) and (found := _CUT_TEXT.search(value)):
-        return found.group(1)
-    if isinstance(value, list) and value and isinstance(value[-1], str) \
-            and (found := _CUT_LIST.search(value[-1])):
-        return f"{found.group(1)} items in all"
-    if isinstance(value, list):
-        return f"{len(value)} items, {len(text)} characters"
-    return f"{len(text)} characters"
+__all__ = ["show_value", "show_arguments", "describe_divergence", "verdict_of", "VERDICT_CLASSES",
+           "VALUE_LIMIT"]
 
 
 def show_arguments(arguments: object) -> str:
@@ -76,8 +37,7 @@ def describe_divergence(divergence: dict | None, limit: int = 40) -> str:
     if divergence.get("last_agreeing") is not None:
         text += f", last agreeing {show_value(divergence['last_agreeing'])}"
     if "got" in divergence:
-        text += (f"; got {show_value(divergence.get('got'), limit)}, "
-                 f"expected {show_value(divergence.get('expected'), limit)}")
+        text += f"; {got_expected(divergence.get('got'), divergence.get('expected'), limit)}"
     return text
 
 

@@ -22,6 +22,8 @@ from .._errors import InvalidInputError
 from . import _plot_data, _plots
 from ._cautions import CAUTIONS
 from ._describe import VERDICT_CLASSES, describe_divergence, show_arguments, show_value, verdict_of
+from ._summary_text import verdict_line
+from ._values import show_pair
 from ._json import ordered_summary
 from ._reproduce import reproduce_command
 
@@ -148,6 +150,7 @@ def _run_section(index: int, summary: dict, records: list[dict]) -> list[str]:
         settings.append(("run", "not every point was run: the results are partial"))
     parts = [f'<section id="run-{index}">',
              f'<h2>{_text(summary["role"])}: <span class="{VERDICT_CLASSES[verdict]}">{verdict}</span></h2>',
+             f'<p class="verdict-line">{_text(verdict_line(summary))}</p>' if "not_run" in summary else "",
              "<dl>"]
     parts += [f"<dt>{_text(name)}</dt><dd>{_text(value)}</dd>" for name, value in settings if value != ""]
     parts += ["</dl>", "<p>To repeat this audit:</p>",
@@ -216,7 +219,10 @@ def _figures(summary: dict, records: list[dict]) -> list[str]:
         if statuses:
             figures.append(_figure(
                 _plots.status_strip(role, statuses, divergence), f"{role}: verdict of each check",
-                f"The verdict of {len(statuses)} checks against the size of the input."
+                f"The verdict of {len(statuses)} checks against the size of the input"
+                + ("." if len(statuses) == summary["checks"] else
+                   f" (drawn from the summary's {summary['checks']} checks: inputs of at least 1, "
+                   f"at most {_plot_data.MAX_POINTS} of each verdict, spread over the sizes).")
                 + _divergence_caption(divergence)))
     envelope = _plot_data.envelope(role, records)
     if envelope:
@@ -246,12 +252,12 @@ def _failure_table(failures: list[dict]) -> list[str]:
              "<tr><th>status</th><th>check</th><th>family</th><th>input</th><th>got</th>"
              "<th>expected</th><th>provenance</th><th>detail</th></tr>"]
     for failure in failures[:FAILURE_ROWS]:
+        got, expected = show_pair(failure.get("got"), failure.get("expected"))
         parts.append(
             f"<tr><td>{_text(failure.get('status'))}</td><td>{_text(failure.get('check'))}</td>"
             f"<td>{_text(failure.get('family'))}</td>"
             f'<td class="value">{_text(show_arguments(failure.get("arguments")))}</td>'
-            f'<td class="value">{_text(show_value(failure.get("got")))}</td>'
-            f'<td class="value">{_text(show_value(failure.get("expected")))}</td>'
+            f'<td class="value">{_text(got)}</td><td class="value">{_text(expected)}</td>'
             f"<td>{_text(failure.get('provenance'))}</td>"
             f"<td>{_text(show_value(failure.get('detail'), 400))}</td></tr>")
     parts.append("</table>")

@@ -3,7 +3,7 @@
 >>> from oracle import roles
 >>> roles.get("prime_pi").signature
 'prime_pi(x) -> int: number of primes p <= x; 0 for x < 2'
->>> roles.infer("my_prime_pi")
+>>> roles.infer("primepi")
 'prime_pi'
 
 One module per role (docs/DESIGN.md, "Candidate conventions"); :class:`Conventions`
@@ -21,7 +21,7 @@ from . import (mertens, prime_pi_mod, prime_sum, quadruplet_pi, squarefree_count
                triplet_pi_026, triplet_pi_046)
 from . import divisor_count, divisor_sum, mobius, totient
 
-__all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES", "get", "infer"]
+__all__ = ["AbsurdAnswer", "Conventions", "Role", "Verdict", "WrongType", "ROLES", "ALIASES", "get", "infer"]
 
 #: Every role by name.
 ROLES: dict[str, Role] = {module.ROLE.name: module.ROLE for module in (
@@ -33,23 +33,23 @@ ROLES.update({module.ROLE.name: module.ROLE for module in (
 ROLES.update({module.ROLE.name: module.ROLE for module in (
     mobius, totient, divisor_count, divisor_sum)})
 
-# Other names real libraries give the same function (used only to infer a role).
-_ALIASES = {
-    "primepi": "prime_pi", "pi": "prime_pi", "count_primes": "prime_pi", "prime_count": "prime_pi",
-    "twin_primes_count": "twin_pi", "count_twins": "twin_pi", "twinpi": "twin_pi",
-    "prime": "nth_prime", "nthprime": "nth_prime",
-    "isprime": "is_prime", "is_probable_prime": "is_prime", "primality": "is_prime",
-    "nextprime": "next_prime", "prevprime": "prev_prime", "previous_prime": "prev_prime",
-    "primes": "primes_in", "primerange": "primes_in", "primes_between": "primes_in",
-    "sieve": "primes_in", "factorint": "factor", "factorize": "factor",
-    "factorise": "factor", "factorization": "factor",
+#: The other names a function may have for its role to be inferred (README, "Role names"):
+#: the role names written without underscores, and a few common spellings.  Nothing else is
+#: guessed -- ``prime`` or ``primes`` could mean several roles -- so any other name needs --role.
+ALIASES = {
+    "primepi": "prime_pi", "count_primes": "prime_pi", "prime_count": "prime_pi",
+    "twinpi": "twin_pi",
+    "nthprime": "nth_prime",
+    "isprime": "is_prime",
+    "nextprime": "next_prime",
+    "prevprime": "prev_prime", "previous_prime": "prev_prime",
+    "primesin": "primes_in", "primerange": "primes_in",
+    "factorint": "factor", "factorize": "factor", "factorise": "factor",
+    "moebius": "mobius", "euler_phi": "totient", "num_divisors": "divisor_count",
+    "divisors_count": "divisor_count", "divisor_sigma": "divisor_sum", "sum_of_divisors": "divisor_sum",
     "sum_primes": "prime_sum", "primesum": "prime_sum", "sum_of_primes": "prime_sum",
     "mertens_function": "mertens", "count_squarefree": "squarefree_count",
-    "squarefree_pi": "squarefree_count", "primepi_mod": "prime_pi_mod",
-    "primes_in_progression": "prime_pi_mod", "count_primes_mod": "prime_pi_mod",
-    "moebius": "mobius", "mu": "mobius", "phi": "totient", "euler_phi": "totient",
-    "divisors_count": "divisor_count", "num_divisors": "divisor_count", "tau": "divisor_count",
-    "sigma": "divisor_sum", "divisor_sigma": "divisor_sum", "sum_of_divisors": "divisor_sum",
+    "primepi_mod": "prime_pi_mod", "count_primes_mod": "prime_pi_mod",
 }
 
 
@@ -61,22 +61,15 @@ def get(name: str) -> Role:
 
 
 def infer(function_name: str) -> str:
-    """The role a function name points to, when exactly one fits.
+    """The role of a function named exactly like a role or one of :data:`ALIASES`.
 
-    The name matches a role if it equals the role or an alias, or ends with
-    one after an underscore (``my_prime_pi``; the longest such ending decides);
-    raises when none or several fit.
+    No other name is guessed (``my_prime_pi``, ``prime``, ``_small_primes`` are refused):
+    a wrong guess would audit the function against the wrong mathematics.
     """
-    name = function_name.lower()
-    names = {**{role: role for role in ROLES}, **_ALIASES}
-    if name in names:
-        return names[name]
-    suffixes = [alias for alias in names if name.endswith("_" + alias)]
-    longest = max((len(alias) for alias in suffixes), default=0)
-    matches = {names[alias] for alias in suffixes if len(alias) == longest}
-    if len(matches) == 1:
-        return matches.pop()
+    if function_name in ROLES:
+        return function_name
+    if function_name in ALIASES:
+        return ALIASES[function_name]
     raise InvalidInputError(
-        f"cannot infer the role of {function_name!r}"
-        + (f" (it could be {', '.join(sorted(matches))})" if matches else "")
-        + f"; pass --role, one of {', '.join(ROLES)}")
+        f"cannot infer the role of {function_name!r}: only a role name or a listed alias is "
+        f"recognised; pass --role, one of {', '.join(ROLES)}")
