@@ -262,6 +262,18 @@ def _audits(folders: list[Path]) -> None:
         assert process.wait(timeout=300) == 1, process.stderr.read()[-2000:]
 
 
+def _findings_in_streams(folder: Path) -> list:
+    """(role, target, arguments) of every finding in the results streams of ``folder``."""
+    found = set()
+    for path in (folder / ".ntoracle" / "runs").glob("*.jsonl"):
+        records = engine.read_records(path)
+        start = next(r for r in records if r.get("type") == "start")
+        found.update((start["role"], start["target"], tuple(r["arguments"])) for r in records
+                     if r.get("type") == "check" and r["status"] in engine.FAILURE_STATUSES
+                     and r["family"] not in ("identity", "harness"))
+    return sorted(found)
+
+
 def _entries(folder: Path) -> list:
     return sorted((e["role"], e["target"], tuple(e["arguments"]))
                   for e in engine.load_corpus(folder / ".ntoracle" / "regressions.yaml"))
@@ -270,13 +282,14 @@ def _entries(folder: Path) -> list:
 @pytest.mark.parametrize("trials", [pytest.param(2, id="2-trials"),
                                     pytest.param(20, id="20-trials", marks=pytest.mark.slow)])
 def test_two_concurrent_audits_keep_every_corpus_entry(tmp_path, trials):
-    apart = [_fresh(tmp_path / "first"), _fresh(tmp_path / "second")]
-    _audits(apart)          # each in a folder of its own: what each records
-    expected = sorted(_entries(apart[0]) + _entries(apart[1]))
-    assert {role for role, _, _ in expected} == {"prime_pi", "nth_prime"}
+    # What each audit found is read from its own results stream (the number of findings
+    # may vary with the machine's load, which the time budget follows); the shared corpus
+    # must hold every one of them, once, whole.
     for trial in range(trials):
         together = _fresh(tmp_path / f"trial{trial}")
         _audits([together])
+        expected = _findings_in_streams(together)
+        assert {role for role, _, _ in expected} == {"prime_pi", "nth_prime"}
         assert _entries(together) == expected, f"trial {trial}"
 
 

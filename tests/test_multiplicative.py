@@ -79,7 +79,9 @@ def test_role_passes_the_right_value_and_fails_a_wrong_one(name):
 
 def test_roles_are_registered_and_inferred():
     assert {"mobius", "totient", "divisor_count", "divisor_sum"} <= set(roles.ROLES)
-    assert roles.infer("my_totient") == "totient" and roles.infer("divisor_sigma") == "divisor_sum"
+    assert roles.infer("totient") == "totient" and roles.infer("divisor_sigma") == "divisor_sum"
+    with pytest.raises(InvalidInputError):          # only role names and listed aliases
+        roles.infer("my_totient")
     assert roles.infer("moebius") == "mobius" and roles.infer("num_divisors") == "divisor_count"
 
 

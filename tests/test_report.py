@@ -499,7 +499,8 @@ def bounded_run(function, role, path, description):
     target = targets.InProcessTarget(function, timeout=30.0, description=description)
     try:
         summary = engine.run_audit(target, engine.AuditOptions(
-            role=role, profile="quick", seed=3, maximum=50, stream=str(path), stop_after=2))
+            role=role, profile="quick", seed=3, maximum=50, stream=str(path), stop_after=2,
+            time_budget=600.0))       # a loaded machine must not cut the run before 2 findings
     finally:
         target.close()
     return summary, engine.read_records(path)
