@@ -34,7 +34,7 @@ import numpy as np
 
 from ._exact_sum import exact_sum
 from ._parameters import LeafTables
-from ._partial_sieve import PartialSieve
+from ._partial_sieve import partial_sieve_type
 from ._prime_source import count_primes_between
 from ._quotients import floor_quotients
 
@@ -60,9 +60,16 @@ def _last_hard_index(tables: LeafTables) -> int:
 class HardLeaves:
     """Sum of the hard special leaves, computed one sieve segment at a time."""
 
-    def __init__(self, tables: LeafTables, earlier: tuple[tuple[int, int], ...] = ()):
-        """Sum the leaves of the segments after ``earlier``, the ``(lo, hi)`` that cover ``[0, start)``."""
+    def __init__(self, tables: LeafTables, earlier: tuple[tuple[int, int], ...] = (),
+                 kernel: str | None = None):
+        """Sum the leaves of the segments after ``earlier``, the ``(lo, hi)`` that cover ``[0, start)``.
+
+        ``kernel`` chooses the partial sieve's loops (see
+        :func:`._partial_sieve.partial_sieve_type`): ``None`` (the default
+        choice), ``"numpy"`` or ``"jit"``.
+        """
         self.t = tables
+        self.sieve_type = partial_sieve_type(tables.x, kernel)
         self.last_b = _last_hard_index(tables)
         self.root_y = isqrt(tables.y)
         # The m that can ever appear with a prime above p_c: squarefree, lpf(m) > p_c.
@@ -141,7 +148,7 @@ class HardLeaves:
             else:                                         # lo - 1 < p_(b+1)^2 here
                 self.phi_before[b] = max(1, 1 + self.pi_before - b)
         self.active_top = max(self.active_top, top)
-        sieve = PartialSieve(lo, hi, self.initial_primes)
+        sieve = self.sieve_type(lo, hi, self.initial_primes)
         for b in range(t.c, top + 1):
             values, plus = self._leaf_values(b, lo, hi)
             if values.size:
