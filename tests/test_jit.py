@@ -65,6 +65,17 @@ def test_compiled_sieve_counts_agree_with_numpy_and_the_definition(lo_blocks, le
         assert np.array_equal(compiled.count_up_to(values), expected), p
         assert np.array_equal(numpy_sieve.count_up_to(values), expected), p
         assert compiled.survivors() == numpy_sieve.survivors() == int(alive.sum())
+        # n // d over divisors d with lpf(d) > p, as the hard leaves use it
+        n = hi * 7 + 3
+        divisors = np.arange(8, 15, dtype=np.int64)
+        lpf = np.array([2, 3, 2, 5, 2, 11, 2], dtype=np.int64)      # lpf of 8..14
+        inside = [i for i in range(7) if lo <= n // int(divisors[i]) < hi and lpf[i] > 3]
+        if inside:
+            first, last = inside[0], inside[-1] + 1
+            chosen = [i for i in range(first, last) if lpf[i] > 3]
+            expected_sum = sum(int(np.cumsum(alive)[n // int(divisors[i]) - lo]) for i in chosen)
+            assert compiled.quotient_count_sum(n, divisors, lpf, 3, first, last) == (
+                expected_sum, len(chosen))
         compiled.remove_multiples(p)
         numpy_sieve.remove_multiples(p)
         removed.append(p)
@@ -93,7 +104,7 @@ def test_both_kernels_at_random_x_up_to_10_to_12_agree_with_primecountpy():
 @needs_numba
 @pytest.mark.parametrize("segments", [1, 3, 17])
 def test_both_kernels_with_many_short_segments_agree(segments):
-    x = 987654321987
+    x = 98765432198
     numpy_value, jit_value = _both(x, segment_size=segments * SEGMENT_GRANULE)
     assert numpy_value == jit_value == primecount.prime_pi(x)
 
