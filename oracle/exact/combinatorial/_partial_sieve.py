@@ -144,7 +144,7 @@ class PartialSieve:
         return before[block] + inside + partial
 
 
-#: From this x on the compiled loops are the default: a process pays about a second
+#: From this x on the compiled loops are the default: a process pays 0.7-1.3 s
 #: (measured here, 2 busy cores) to import numba and load the cached kernels, and
 #: near 10**14 the saving on one pi(x) is about the same.
 JIT_MIN_X = 10**15
