@@ -59,11 +59,14 @@ def default_segment_size(x: int, y: int) -> int:
 
 
 def prime_pi_deleglise_rivat(x: int, *, alpha: float | None = None,
-                             segment_size: int | None = None, report=None) -> int:
+                             segment_size: int | None = None, report=None,
+                             kernel: str | None = None) -> int:
     """``pi(x)`` for ``27 <= x <= 10**18`` (``y >= 3``, so the sieve may skip 2 and 3).
 
     ``report(fraction, stage)``, if given, is called after each segment; it
-    may raise to abandon the run (the time budget does so).
+    may raise to abandon the run (the time budget does so).  ``kernel``
+    (``None``, ``"numpy"`` or ``"jit"``) picks the partial sieve's loops, see
+    :func:`._partial_sieve.partial_sieve_type`; the answer is the same.
     """
     if not 27 <= x <= LARGEST_X:
         raise ValueError(f"prime_pi_deleglise_rivat needs 27 <= x <= 10**18, got {x}")
@@ -76,7 +79,7 @@ def prime_pi_deleglise_rivat(x: int, *, alpha: float | None = None,
 
     phi = ordinary_leaves(x, y, tables.c, tables.lpf, tables.mu)
 
-    hard = HardLeaves(tables)
+    hard = HardLeaves(tables, kernel=kernel)
     for lo in range(0, z + 1, size):
         hard.add_segment(lo, lo + size)
         if report is not None:

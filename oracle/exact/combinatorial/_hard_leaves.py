@@ -34,7 +34,7 @@ import numpy as np
 
 from ._exact_sum import exact_sum
 from ._parameters import LeafTables
-from ._partial_sieve import PartialSieve
+from ._partial_sieve import partial_sieve_type
 from ._prime_source import count_primes_between
 from ._quotients import floor_quotients
 
@@ -60,9 +60,17 @@ def _last_hard_index(tables: LeafTables) -> int:
 class HardLeaves:
     """Sum of the hard special leaves, computed one sieve segment at a time."""
 
-    def __init__(self, tables: LeafTables, earlier: tuple[tuple[int, int], ...] = ()):
-        """Sum the leaves of the segments after ``earlier``, the ``(lo, hi)`` that cover ``[0, start)``."""
+    def __init__(self, tables: LeafTables, earlier: tuple[tuple[int, int], ...] = (),
+                 kernel: str | None = None):
+        """Sum the leaves of the segments after ``earlier``, the ``(lo, hi)`` that cover ``[0, start)``.
+
+        ``kernel`` chooses the partial sieve's loops (see
+        :func:`._partial_sieve.partial_sieve_type`): ``None`` (the default
+        choice), ``"numpy"`` or ``"jit"``.
+        """
         self.t = tables
+        self.sieve_type = partial_sieve_type(tables.x, kernel)
+        self.compiled = hasattr(self.sieve_type, "quotient_count_sum")
         self.last_b = _last_hard_index(tables)
         self.root_y = isqrt(tables.y)
         # The m that can ever appear with a prime above p_c: squarefree, lpf(m) > p_c.
@@ -102,11 +110,12 @@ class HardLeaves:
             top = b
         return top
 
-    def _leaf_values(self, b: int, lo: int, hi: int) -> tuple[np.ndarray, int]:
-        """Values ``v = x // (m p)`` in ``[lo, hi)`` of the hard leaves of ``b``.
+    def _leaf_runs(self, b: int, lo: int, hi: int) -> tuple[int, list[tuple]]:
+        """The ``m`` of the hard leaves of ``b`` with values ``v = n // m`` in ``[lo, hi)``, ``n = x // p``.
 
-        Returns ``(values, k)``: the first ``k`` leaves have ``-mu(m) = +1``, the
-        others ``-mu(m) = -1``.
+        Returns ``(n, runs)``; each run ``(sign, m, m_float, m_lpf, first, last)``
+        stands for the ``m[i]``, ``first <= i < last``, with ``m_lpf[i] > p``,
+        whose leaves have ``-mu(m) = sign``.
         """
         t = self.t
         x, y, p = t.x, t.y, int(t.primes[b])
@@ -114,19 +123,54 @@ class HardLeaves:
         m_high = min(y, x // (max(lo, 1) * p))           # m <= m_high
         if p <= self.root_y:
             if m_high <= m_low:
-                return np.zeros(0, np.int64), 0
-            parts = []
-            for m, m_float, m_lpf in self.m_by_sign:
+                return x // p, []
+            runs = []
+            for sign, (m, m_float, m_lpf) in zip((1, -1), self.m_by_sign):
                 first, last = np.searchsorted(m, (m_low, m_high), side="right")
-                keep = m_lpf[first:last] > p
-                parts.append(floor_quotients(x // p, m[first:last][keep], m_float[first:last][keep]))
-            return np.concatenate(parts), int(parts[0].size)
+                runs.append((sign, m, m_float, m_lpf, int(first), int(last)))
+            return x // p, runs
         m_low = max(m_low, p)
         m_high = min(m_high, x // p**3)
         if m_high <= m_low:
+            return x // p, []
+        # m = q prime, -mu(q) = +1; lpf(q) = q > m_low >= p, so the primes serve as their own lpf.
+        first, last = int(t.prime_count[m_low]), int(t.prime_count[m_high])
+        return x // p, [(1, t.primes, self.primes_float, t.primes, first, last)]
+
+    def _leaf_values(self, b: int, lo: int, hi: int) -> tuple[np.ndarray, int]:
+        """Values ``v = x // (m p)`` in ``[lo, hi)`` of the hard leaves of ``b``.
+
+        Returns ``(values, k)``: the first ``k`` leaves have ``-mu(m) = +1``, the
+        others ``-mu(m) = -1``.
+        """
+        n, runs = self._leaf_runs(b, lo, hi)
+        p = int(self.t.primes[b])
+        parts = []
+        for sign, m, m_float, m_lpf, first, last in runs:
+            keep = m_lpf[first:last] > p
+            parts.append(floor_quotients(n, m[first:last][keep], m_float[first:last][keep]))
+        if not parts:
             return np.zeros(0, np.int64), 0
-        run = slice(int(t.prime_count[m_low]), int(t.prime_count[m_high]))
-        return floor_quotients(x // p, t.primes[run], self.primes_float[run]), run.stop - run.start
+        plus = int(parts[0].size) if runs[0][0] == 1 else 0
+        return np.concatenate(parts), plus
+
+    def _signed_leaf_sum(self, sieve, b: int, lo: int, hi: int) -> tuple[int, int]:
+        """``(sum of -mu(m) phi_segment(v), sum of -mu(m))`` over the hard leaves of ``b`` in ``[lo, hi)``."""
+        if self.compiled:
+            n, runs = self._leaf_runs(b, lo, hi)
+            p = int(self.t.primes[b])
+            total, signed_leaves = 0, 0
+            for sign, m, _, m_lpf, first, last in runs:
+                count_sum, number = sieve.quotient_count_sum(n, m, m_lpf, p, first, last)
+                total += sign * count_sum
+                signed_leaves += sign * number
+            return total, signed_leaves
+        values, plus = self._leaf_values(b, lo, hi)
+        if not values.size:
+            return 0, 0
+        counts = sieve.count_up_to(values)              # each <= hi - lo
+        return (exact_sum(counts[:plus], hi - lo) - exact_sum(counts[plus:], hi - lo),
+                2 * plus - values.size)
 
     def add_segment(self, lo: int, hi: int) -> None:
         """Evaluate the hard leaves with values in ``[lo, hi)``."""
@@ -141,16 +185,12 @@ class HardLeaves:
             else:                                         # lo - 1 < p_(b+1)^2 here
                 self.phi_before[b] = max(1, 1 + self.pi_before - b)
         self.active_top = max(self.active_top, top)
-        sieve = PartialSieve(lo, hi, self.initial_primes)
+        sieve = self.sieve_type(lo, hi, self.initial_primes)
         for b in range(t.c, top + 1):
-            values, plus = self._leaf_values(b, lo, hi)
-            if values.size:
-                counts = sieve.count_up_to(values)              # each <= hi - lo
-                signed_leaves = 2 * plus - values.size
-                self.total += (exact_sum(counts[:plus], hi - lo) - exact_sum(counts[plus:], hi - lo)
-                               + self.phi_before[b] * signed_leaves)
-                if b <= self.inherited_top:
-                    self.weights[b] += signed_leaves
+            leaf_sum, signed_leaves = self._signed_leaf_sum(sieve, b, lo, hi)
+            self.total += leaf_sum + self.phi_before[b] * signed_leaves
+            if b <= self.inherited_top:
+                self.weights[b] += signed_leaves
             self.phi_before[b] += sieve.survivors()
             if b < top:
                 sieve.remove_multiples(int(t.primes[b]))

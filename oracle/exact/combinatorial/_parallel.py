@@ -42,7 +42,7 @@ from ._easy_leaves import EasyLeaves
 from ._hard_leaves import HardLeaves
 from ._p2 import SecondPartialSieveTerm
 from ._parameters import choose_y, prepare
-from ._partial_sieve import SEGMENT_GRANULE
+from ._partial_sieve import SEGMENT_GRANULE, PartialSieve, partial_sieve_type
 from ._phi import ordinary_leaves
 from ._prime_segments import prime_segments
 
@@ -104,9 +104,10 @@ def _tables(x: int, y: int):
     return prepare(x, y)
 
 
-def _hard_block(x: int, y: int, segments: tuple[tuple[int, int], ...], first: int, stop: int):
+def _hard_block(x: int, y: int, segments: tuple[tuple[int, int], ...], first: int, stop: int,
+                kernel: str):
     """Hard leaves of ``segments[first:stop]``, with the counts inherited from the earlier ones 0."""
-    hard = HardLeaves(_tables(x, y), earlier=segments[:first])
+    hard = HardLeaves(_tables(x, y), earlier=segments[:first], kernel=kernel)
     for lo, hi in segments[first:stop]:
         hard.add_segment(lo, hi)
     top = hard.inherited_top
@@ -234,18 +235,21 @@ def _join_hard_blocks(results, c: int) -> int:
 
 
 def prime_pi_in_workers(x: int, workers: int, *, segment_size: int | None = None,
-                        report=None) -> int:
+                        report=None, kernel: str | None = None) -> int:
     """``pi(x)`` for ``27 <= x <= 10**18`` with the costly stages in ``workers`` processes.
 
     The same integer as :func:`._deleglise_rivat.prime_pi_deleglise_rivat`;
-    ``segment_size`` as there.  ``report(fraction, stage)`` is called a few
-    times per second; if it raises, the workers are stopped and the error passes on.
+    ``segment_size`` and ``kernel`` as there (the kernel is chosen here, in
+    the calling process, so ``NTORACLE_JIT`` is read where the user set it).
+    ``report(fraction, stage)`` is called a few times per second; if it
+    raises, the workers are stopped and the error passes on.
     """
     y = choose_y(x, default_alpha(x))
     tables = prepare(x, y)
     size = default_segment_size(x, y) if segment_size is None else segment_size
     if size <= 0 or size % SEGMENT_GRANULE:
         raise ValueError(f"segment_size must be a positive multiple of {SEGMENT_GRANULE}")
+    kernel = "jit" if partial_sieve_type(x, kernel) is not PartialSieve else "numpy"
     z, pieces = tables.z, BLOCKS_PER_WORKER * workers
     prime_size = min(size, PRIME_SEGMENT_LIMIT)
     segments = _growing_segments(z, size) if segment_size is None else tuple(
@@ -258,7 +262,7 @@ def prime_pi_in_workers(x: int, workers: int, *, segment_size: int | None = None
             report(0.0, "tables")
         table = [pool.apply_async(_table_block, (x, y, first, stop))
                  for first, stop in leaves.table_rows_by_cost(pieces)]
-        hard = [pool.apply_async(_hard_block, (x, y, segments, first, stop))
+        hard = [pool.apply_async(_hard_block, (x, y, segments, first, stop, kernel))
                 for first, stop in _split(len(segments), pieces)]
         easy = [pool.apply_async(_easy_block, (x, y, prime_size, start, stop))
                 for start, stop in easy_runs]
