@@ -16,4 +16,4 @@ def divisor_sum(n):
     total = 1
     for p, e in sympy.factorint(n).items():
         total = (total * ((p ** (e + 1) - 1) // (p - 1))) & MASK   # bug: uint64 wrap
-    return total
+    return int(total)
