@@ -46,7 +46,7 @@ import random
 from .. import facade, tables
 from ..sampling._families import PRIME_AT_POWER_OF_TWO
 
-__all__ = ["climb", "CLIMB_FAMILIES", "STOP_REASONS", "oracle_seconds", "CALL_SHARE"]
+__all__ = ["climb", "CLIMB_FAMILIES", "STOP_REASONS", "oracle_seconds", "CALL_SHARE", "stop_reason"]
 
 CLIMB_TABLES, CLIMB_RANDOM, CLIMB_ANSWERS = "climb-tables", "climb-random", "climb-answer-words"
 CLIMB_FAMILIES = (CLIMB_TABLES, CLIMB_RANDOM, CLIMB_ANSWERS)
@@ -146,8 +146,9 @@ def climb(run, seed: int) -> None:
             for name in ahead:
                 stopped.setdefault(name, (DECLARED_DOMAIN, size))
             break
-        if family == CLIMB_TABLES and _projected(run, inputs) > THIN_ABOVE:
-            inputs = _thin(inputs, single=_projected(run, inputs) > SINGLE_ABOVE)
+        projected = _projected(run, inputs) if family == CLIMB_TABLES else 0.0
+        if projected > THIN_ABOVE:
+            inputs = _thin(inputs, single=projected > SINGLE_ABOVE)
             if not inputs:
                 continue
         size = max(inputs)
@@ -177,6 +178,13 @@ def climb(run, seed: int) -> None:
                           "elapsed": run.elapsed()})
 
 
+def stop_reason(blocked: str) -> str:
+    """The climb's stop reason for a point the run would not ask (its skip reason)."""
+    if "declared domain" in blocked:
+        return DECLARED_DOMAIN
+    return CANDIDATE_SPEED if "timed out" in blocked or "speed" in blocked else AFTER_FAILURES
+
+
 def _projected(run, inputs: list[int]) -> float:
     """The candidate's projected seconds per call at the largest input (0 before any call)."""
     return run.speed.project(max(inputs)) or 0.0
@@ -200,7 +208,7 @@ def _why_not(run, size: int, inputs: list[int], timeout: float, budget: float,
         return AFTER_FAILURES
     blocked = run.runnable((max(inputs),))
     if blocked is not None:
-        return CANDIDATE_SPEED if "timed out" in blocked or "speed" in blocked else AFTER_FAILURES
+        return stop_reason(blocked)
     projected = run.speed.project(size)
     if projected is None or projected > CALL_SHARE * timeout:
         return CANDIDATE_SPEED

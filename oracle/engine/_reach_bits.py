@@ -74,6 +74,9 @@ DIGIT_GROWTH = 3
 #: sizes 4/3 apart that leaves a factor 10 (common practice: a hang is a hang by orders of
 #: magnitude).
 PROOF_GROWTH = 8
+#: Calls one step is reckoned to make before its inputs are built (five of its own at most,
+#: and a pseudoprime now and then): the inputs need certificates, built only for steps asked.
+STEP_CALLS = 6
 
 
 def _pseudoprimes_above(ceiling: int) -> list[int]:
@@ -149,7 +152,7 @@ def climb(run, seed: int) -> None:
     rng = random.Random(f"{seed}:climb-bits")
     timeout = run.call_timeout()
     top_bits = TOP_BITS.get(run.profile.name, TOP_BITS["ci"])
-    stopped, following, largest = _reach.TABLES_END, None, None
+    following, largest = None, None
     for bits, extra in _steps(role.name, start, top_bits, rng):
         reason = _why_not(run, bits, timeout)
         if reason is not None:
@@ -182,13 +185,10 @@ def _why_not(run, bits: int, timeout: float) -> str | None:
         return _reach.AFTER_FAILURES
     blocked = run.runnable((2**(bits - 1),))
     if blocked is not None:
-        if "declared domain" in blocked:
-            return _reach.DECLARED_DOMAIN
-        return _reach.CANDIDATE_SPEED if "timed out" in blocked or "speed" in blocked \
-            else _reach.AFTER_FAILURES
+        return _reach.stop_reason(blocked)
     projected = run.speed.project_by_digits(2**bits, DIGIT_GROWTH)
     if projected is None or projected > _reach.CALL_SHARE * timeout:
         return _reach.CANDIDATE_SPEED
-    if 6 * projected > run.remaining() - _reach.RESERVE * run.time_budget:
+    if STEP_CALLS * projected > run.remaining() - _reach.RESERVE * run.time_budget:
         return _reach.TIME_BUDGET
     return None
