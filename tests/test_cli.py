@@ -1,6 +1,7 @@
 """The ntoracle command line: contract of docs/DESIGN.md (output, JSON keys, exit codes)."""
 
 import json
+import os
 import subprocess
 import sys
 
@@ -134,3 +135,14 @@ def test_value_factor_out_of_reach_within_the_budget_exits_3(capsys):
 def test_value_wrong_argument_count_or_domain_exits_2(capsys, argv):
     code, out, err = run(capsys, *argv)
     assert code == 2 and out == "" and err.startswith("ntoracle: error:")
+
+
+def test_value_of_a_tabulated_point_imports_neither_numpy_nor_mpmath():
+    # Start-up (issue 14): a value read from a table needs no array or interval arithmetic;
+    # the HTML report's bound envelopes (mpmath, numpy) are loaded only by the report writers.
+    probe = ("import sys; from oracle.cli import main; main(['value', 'prime_pi', '1000']); "
+             "print(sorted({'numpy', 'mpmath', 'rich'} & set(sys.modules)))")
+    done = subprocess.run([sys.executable, "-c", probe], capture_output=True, text=True,
+                          env={**os.environ, "NTORACLE_STORE": "off"}, timeout=60)
+    assert done.returncode == 0, done.stderr
+    assert done.stdout.splitlines() == ["prime_pi(1000) = 168    [table:oeis-a006880]", "[]"]

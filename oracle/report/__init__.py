@@ -26,10 +26,8 @@ published standards and a vetted library.
 
 from ._cautions import CAUTIONS
 from ._describe import describe_divergence
-from ._html import write_html
 from ._json import OPTIONAL_KEYS, SUMMARY_KEYS, write_json
 from ._reproduce import reproduce_command
-from ._table_html import write_table_html
 from ._summary_text import divergence_line, finding_line, summary_lines, verdict_line
 from ._table_text import table_summary_lines
 from ._values import got_expected, show_pair, show_value
@@ -39,3 +37,15 @@ __all__ = ["Progress", "summary_table", "write_json", "SUMMARY_KEYS", "OPTIONAL_
            "write_html", "write_table_html", "table_summary_lines", "reproduce_command",
            "describe_divergence", "CAUTIONS", "summary_lines", "verdict_line", "finding_line",
            "divergence_line", "show_value", "show_pair", "got_expected"]
+
+#: The HTML writers draw the proven-bound envelopes (mpmath, numpy): imported on first use, so
+#: that a value printed on the terminal does not pay for them (issue 14, start-up).
+_LAZY = {"write_html": "._html", "write_table_html": "._table_html"}
+
+
+def __getattr__(name: str):
+    if name in _LAZY:
+        import importlib
+
+        return getattr(importlib.import_module(_LAZY[name], __name__), name)
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
