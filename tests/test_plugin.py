@@ -902,3 +902,29 @@ def test_failure_text_writes_values_with_the_shared_renderer(project):
     expected = next(line for line in output.splitlines() if line.startswith("    expected:   [..."))
     assert "179" not in got and "179" in expected           # the 41st prime, lost (sympy.prime(41))
     assert ",," not in got + expected and got[16:] != expected[16:]
+
+
+# Correct and slow where the input is a large prime: trial division by odd d <= isqrt(n).
+TRIAL_DIVISION_IS_PRIME = """
+from math import isqrt
+
+def is_prime(n):
+    if n < 2:
+        return False
+    if n % 2 == 0:
+        return n == 2
+    return all(n % d for d in range(3, isqrt(n) + 1, 2))
+"""
+
+
+def test_a_correct_but_slow_candidate_is_skipped_where_too_slow_never_failed(project):
+    # Each plugin item is a run of its own; a large prime such as 2^61 - 1 (OEIS A000668) asked
+    # in an item of its own must be judged against the calls of the items before it, and
+    # trial division's quick answers on large composites must not make it look hung.
+    project.makepyfile(trial=TRIAL_DIVISION_IS_PRIME)
+    result = project.runpytest(*PLUGIN, "--ntoracle-target", "is_prime=trial:is_prime timeout=0.5",
+                               "--ntoracle-seed", "3", "-k", "landmarks or pseudoprimes or carmichael", "-rs")
+    outcomes = result.parseoutcomes()
+    assert "failed" not in outcomes, result.stdout.str()[-3000:]
+    assert outcomes.get("skipped", 0) >= 1            # 2^61 - 1 is beyond trial division in 0.5 s
+    assert "too slow" in result.stdout.str() or "too-slow" in result.stdout.str()

@@ -181,6 +181,21 @@ def test_timeout_classification():
     assert _timeouts.after_retry(2**40, fast.project(2**40), 10.0, 40.0)[0] == "hung"          # tiny projection
 
 
+def test_a_quick_answer_at_a_similar_size_proves_nothing_where_cost_depends_on_the_input():
+    # Trial division answers 2^61 + 1 (divisible by 3) at once and needs 2^30 steps for the
+    # prime 2^61 - 1 (OEIS A000668): for such roles only the retry and the projection decide.
+    speed = SpeedModel()
+    speed.observe(2**61 + 1, 0.0001)
+    assert _timeouts.obviously_hung(2**61 - 1, speed, 10.0, invalid=False)                  # counting
+    assert _timeouts.obviously_hung(2**61 - 1, speed, 10.0, invalid=False, cost_follows_size=False) is None
+    assert _timeouts.obviously_hung(5000, speed, 10.0, invalid=False, cost_follows_size=False)  # small
+
+
+def test_a_timeout_with_no_call_answered_before_is_too_slow_not_hung():
+    status, reason = _timeouts.after_retry(2**61 - 1, SpeedModel().project(2**61 - 1), 10.0, 40.0)
+    assert status == "too-slow" and "no call had answered before" in reason
+
+
 #: Growing sizes for the sleepy candidate: answered (12, 24, 40 ms), answered on the retry only
 #: (110 ms, over 50 ms), too slow (450 ms, over 4 × 50 ms), then not asked.
 SLEEPY_POINTS = [(2**20,), (14 * 2**20 // 10,), (18 * 2**20 // 10,), (3 * 2**20,), (6 * 2**20,),

@@ -15,9 +15,10 @@ Passing these checks is evidence, not a certificate of correctness.
 from ._audit import AuditInterrupted, AuditOptions, run_audit
 from ._point import audit_invalid_inputs, judge_point
 from ._corpus import DEFAULT_CORPUS, load_corpus, record_failures
+from ._speed import SpeedModel
 from ._records import FAILURE_STATUSES, SKIPS_KEEPING_COMPLETE, failure_statuses, new_run_path, point_to_latest, read_records, summarise
 
-__all__ = ["AuditOptions", "AuditInterrupted", "run_audit", "judge_point", "audit_invalid_inputs", "new_run_path", "point_to_latest", "DEFAULT_CORPUS", "load_corpus", "record_failures",
+__all__ = ["AuditOptions", "AuditInterrupted", "run_audit", "SpeedModel", "judge_point", "audit_invalid_inputs", "new_run_path", "point_to_latest", "DEFAULT_CORPUS", "load_corpus", "record_failures",
            "FAILURE_STATUSES", "failure_statuses", "SKIPS_KEEPING_COMPLETE", "read_records", "summarise", "rebuild_summary"]
 
 

@@ -157,7 +157,8 @@ class AuditInterrupted(KeyboardInterrupt):
 
 
 class _Run:
-    def __init__(self, target, options: AuditOptions, stream: RecordStream):
+    def __init__(self, target, options: AuditOptions, stream: RecordStream,
+                 speed: SpeedModel | None = None):
         self.target = target
         self.options = options
         self.role: Role = roles_module.get(options.role)
@@ -174,7 +175,7 @@ class _Run:
         self.too_slow: list[dict] = []
         self.crashes = 0
         self.faults = 0             # hangs and crashes
-        self.speed = SpeedModel()
+        self.speed = SpeedModel() if speed is None else speed
         self.failing = failure_statuses(options.slow_fails)
         self.skipped: dict[str, list[int]] = {}
         self.family_stops: dict[str, str] = {}     # the first reason a family's point was skipped
@@ -221,8 +222,8 @@ class _Run:
         magnitude = self.role.magnitude(arguments)
         timeout = self.call_timeout()
         by_digits = family == _reach_bits.CLIMB_BITS
-        reason = None if by_digits else _timeouts.obviously_hung(magnitude, self.speed, timeout,
-                                                                  invalid=invalid)
+        reason = None if by_digits else _timeouts.obviously_hung(
+            magnitude, self.speed, timeout, invalid=invalid, cost_follows_size=self.role.counting)
         retried = None
         if reason is None and self.slow_sizes and magnitude >= min(self.slow_sizes):
             status = _timeouts.TOO_SLOW           # no retry: a smaller call was too slow already
@@ -553,7 +554,7 @@ def _check_options(options: AuditOptions, role: Role) -> None:
 
 
 def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
-              kind: str = "python") -> dict:
+              kind: str = "python", speed: SpeedModel | None = None) -> dict:
     """Audit ``target`` (from :mod:`oracle.targets`) and return the summary.
 
     Results stream to ``options.stream`` (JSON lines) as they are found; failures
@@ -562,7 +563,10 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
     target), also when the run is interrupted (then :class:`AuditInterrupted` is
     raised for Ctrl-C, the exception itself otherwise).  With ``only``, just those
     argument tuples are asked (a replay): no sampling, no re-asking; those outside
-    the role's domain are judged by the invalid-input policy.
+    the role's domain are judged by the invalid-input policy.  ``speed``: the candidate's
+    cost curve so far (:class:`oracle.engine.SpeedModel`), carried over from earlier runs
+    of the same target, so that a timeout at a point asked alone is judged against the
+    calls before it (the plugin asks each item's points in a run of their own).
     """
     seed = options.seed if options.seed is not None else sampling.new_seed()
     chosen = sampling.profile(options.profile)
@@ -572,7 +576,7 @@ def run_audit(target, options: AuditOptions, *, only: list[tuple] | None = None,
         options.timeout = chosen.timeout
     entries = load_corpus(options.corpus) if options.corpus and only is None else []
     stream = RecordStream(options.stream, on_record=options.on_record)
-    run = _Run(target, options, stream)
+    run = _Run(target, options, stream, speed)
     stopped: BaseException | None = None
     try:
         stream.write({"type": "start", "target": bounded_text(target.description), "kind": kind,

@@ -4,16 +4,28 @@ A timeout alone does not say which.  It is *hung* when
 
 * the input lies outside the role's domain, or is small (magnitude below
   :data:`SMALL_INPUT`, cheap for any reasonable method), or
-* a call at a magnitude at least half as large was answered within
-  :data:`QUICK_SHARE` of the timeout (the code is fast there: with growth
-  exponent at most 2, see :mod:`oracle.engine._speed`, this call should have
-  taken well under the timeout), or
+* for a role whose cost follows the size of its argument (the counting roles:
+  π(x) costs more at a larger x whatever x is), a call at a magnitude at least
+  half as large was answered within :data:`QUICK_SHARE` of the timeout (the
+  code is fast there: with growth exponent at most 2, see
+  :mod:`oracle.engine._speed`, this call should have taken well under the
+  timeout), or
 * it does not answer a retry with :data:`RETRY_FACTOR` times the timeout
   either, although the calls below it do not project to a slow call here.
 
+Where the cost depends on what the input *is* -- a primality test rejects
+most composites at once and works hard on primes; trial division factors a
+number with a small factor at once at any size; an interval costs by its
+width -- a quick answer at a similar size says nothing, so only the retry and
+the projection decide (common practice of the trade: the cost of primality
+tests and factorisers is input-dependent).
+
 It is *too slow* when the retry does not answer either and the calls at
 smaller sizes got progressively slower: their projection to this size is at
-least :data:`SLOW_SHARE` of the timeout.  A retry that answers is judged like
+least :data:`SLOW_SHARE` of the timeout; or when no call had answered before
+at all (nothing shows the candidate should be fast here; the run's first
+points are small ones, so this happens where a front end asks a large point
+alone, such as one plugin item).  A retry that answers is judged like
 any answer.  In the climb by bit size (:mod:`oracle.engine._reach_bits`) the
 cost depends on what the input is as much as on its size (a composite is
 rejected at once, a prime of the same size needs a proof), so there only the
@@ -39,13 +51,17 @@ QUICK_SHARE = 0.1
 SLOW_SHARE = 0.25
 
 
-def obviously_hung(magnitude: int, speed: SpeedModel, timeout: float, *, invalid: bool) -> str | None:
-    """Why a timeout is a hang without asking again, or None when a retry should decide."""
+def obviously_hung(magnitude: int, speed: SpeedModel, timeout: float, *, invalid: bool,
+                   cost_follows_size: bool = True) -> str | None:
+    """Why a timeout is a hang without asking again, or None when a retry should decide.
+
+    ``cost_follows_size``: whether a quick call at a similar size shows this one should be
+    quick too (true for the counting roles, not where the cost depends on the input)."""
     if invalid:
         return "no answer at an input outside the domain"
     if magnitude < SMALL_INPUT:
         return f"no answer at a small input (below {SMALL_INPUT:.0e})"
-    if speed.answered_quickly_at_least(magnitude // 2, QUICK_SHARE * timeout):
+    if cost_follows_size and speed.answered_quickly_at_least(magnitude // 2, QUICK_SHARE * timeout):
         return (f"no answer, though a call at a similar or larger size was answered within "
                 f"{QUICK_SHARE * timeout:.3g} s")
     return None
@@ -58,8 +74,11 @@ def after_retry(magnitude: int, projected: float | None, timeout: float, retried
     project at this size (:class:`oracle.engine._speed.SpeedModel`), None if none answered."""
     again = (f"nor within {retried:.3g} s when asked again" if retried is not None
              else "no time left to ask again")
-    if projected is not None and projected >= SLOW_SHARE * timeout:
+    if projected is None:
+        return TOO_SLOW, (f"no answer within {timeout:g} s ({again}); no call had answered before, "
+                          f"so nothing shows it should be fast at this size")
+    if projected >= SLOW_SHARE * timeout:
         return TOO_SLOW, (f"no answer within {timeout:g} s ({again}); smaller calls grew slower: "
                           f"about {projected:.3g} s projected at this size")
-    shown = "no call answered before" if projected is None else f"{projected:.3g} s projected"
-    return HUNG, f"no answer within {timeout:g} s ({again}), though smaller calls were fast ({shown})"
+    return HUNG, (f"no answer within {timeout:g} s ({again}), though smaller calls were fast "
+                  f"({projected:.3g} s projected)")

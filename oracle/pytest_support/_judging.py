@@ -22,11 +22,12 @@ __all__ = ["judge_points", "judge_invalid_inputs", "CallableTarget"]
 
 def judge_points(target, *, role: str, profile: str, seed: int, points: list[tuple[int, ...]],
                  timeout: float | None = None, maximum: int | None = None,
-                 conventions: dict | None = None, stream: str | None = None) -> dict:
-    """The audit summary of ``target`` asked at exactly ``points``."""
+                 conventions: dict | None = None, stream: str | None = None, speed=None) -> dict:
+    """The audit summary of ``target`` asked at exactly ``points``; ``speed``, the target's
+    cost curve from earlier items (:class:`oracle.engine.SpeedModel`), judges its timeouts."""
     options = AuditOptions(role=role, profile=profile, seed=seed, timeout=timeout, maximum=maximum,
                            conventions=Conventions(**(conventions or {})), stream=stream)
-    return run_audit(target, options, only=points)
+    return run_audit(target, options, only=points, speed=speed)
 
 
 def judge_invalid_inputs(target, *, role: str, profile: str, seed: int,

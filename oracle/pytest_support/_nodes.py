@@ -46,7 +46,15 @@ class TargetPool:
 
     def __init__(self, *, in_process: bool = False):
         self._targets: dict[tuple, object] = {}
+        self._speeds: dict[tuple, object] = {}
         self.in_process = in_process
+
+    def speed(self, kind: str, spec: str, role: str):
+        """The cost curve of one target in one role, shared by its items in this process, so
+        that a timeout in one item is judged against the calls of the items before it."""
+        from ..engine import SpeedModel
+
+        return self._speeds.setdefault((kind, spec, role), SpeedModel())
 
     def get(self, kind: str, spec: str, role: str, timeout: float):
         from .. import targets
@@ -243,7 +251,8 @@ class CheckItem(pytest.Item):
             if self.group.kind == "invalid":
                 summary = judge_invalid_inputs(target, **common)
             else:
-                summary = judge_points(target, maximum=chosen.maximum, **common)
+                summary = judge_points(target, maximum=chosen.maximum,
+                                       speed=pool.speed(setting.kind, setting.spec, suite.role), **common)
         except OSError as error:                          # an executable that cannot be started
             pytest.fail(f"ntoracle: {setting.source}: cannot run {setting.spec!r}: {error}", pytrace=False)
         from ._session import item_properties
