@@ -112,6 +112,42 @@ def test_published_tables_have_the_defining_property():
         assert passes_strong_test(p * p, (2,))
 
 
+# Least strong pseudoprimes to the base sets published as deterministic below a bound
+# (G. Jaeschke 1993, Math. Comp. 61; the last from the Prime Pages), copied here from memory,
+# independently of the module's constants.
+LEAST_SPSP_OF_BASE_SETS = {(31, 73): 9080191, (2, 7, 61): 4759123141,
+                           (2, 13, 23, 1662803): 1122004669633,
+                           (2, 3, 7, 61, 24251): 46856248255981}
+
+
+def test_least_pseudoprimes_of_deterministic_base_sets_have_the_defining_property():
+    assert adversarial.LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS == LEAST_SPSP_OF_BASE_SETS
+    published = {bases: bound for bases, bound in adversarial.DETERMINISTIC_BASE_SETS}
+    for bases, n in LEAST_SPSP_OF_BASE_SETS.items():
+        assert not sympy.isprime(n) and passes_strong_test(n, bases)     # sympy's strong test
+        assert len(sympy.factorint(n)) == 2
+        assert n >= published[bases] or bases == (2, 3, 7, 61, 24251)   # the one exception
+
+
+@pytest.mark.slow
+def test_search_finds_least_strong_pseudoprime_to_bases_31_and_73():
+    assert adversarial.strong_pseudoprimes_below(9080191 + 1, (31, 73)) == [9080191]
+
+
+def test_base_divisor_primes_are_the_primes_dividing_the_published_bases():
+    expected = set()
+    for bases, _bound in adversarial.DETERMINISTIC_BASE_SETS:
+        for base in bases:
+            expected.update(sympy.factorint(base))
+    found = adversarial.base_divisor_primes()
+    assert found == sorted(expected)
+    # the seven-base set for n < 2**64: 9780504 = 2**3 * 3 * 407521, 1795265022 = 2 * 3 * 299210837
+    assert {407521, 299210837, 73, 193} <= set(found)
+    for p, base in ((407521, 9780504), (299210837, 1795265022)):
+        # the base is 0 mod p, so a**d = 0 (mod p): an unskipped base calls the prime p composite
+        assert sympy.isprime(p) and pow(base, p - 1, p) == 0
+
+
 def _strong_to_base_2(n: int) -> bool:
     """The defining test, written out here (independent of the library's search)."""
     d, s = n - 1, 0

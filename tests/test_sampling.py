@@ -95,6 +95,8 @@ import sympy
 
 from oracle.sampling import _families
 
+from sympy.ntheory.primetest import mr as sympy_mr
+
 from _references import reference
 
 #: OEIS A051439, prime(2^k + 1) for k = 0..28 (data section, read with the search tool).
@@ -167,6 +169,32 @@ def test_sieve_seams_are_primes_at_segment_multiples_and_sieving_prime_starts():
     starts = [(a, b) for a, b in intervals if sympy.isprime(a)]
     assert len(starts) >= 40 and all(a * a <= b or a + 1 in (3,) for a, b in starts)
     assert {(1021, 2**20), (1020, 2**20), (1021, 1021**2)} <= set(intervals)
+
+
+def test_base_divisors_hold_the_primes_dividing_published_miller_rabin_bases():
+    points = set(_family("base-divisors", ceiling=2**64))
+    # 9780504 = 2**3 * 3 * 407521 and 1795265022 = 2 * 3 * 299210837 (sympy), bases of the
+    # seven-base set for n < 2**64
+    for base, p in ((9780504, 407521), (1795265022, 299210837)):
+        assert sympy.factorint(base)[p] == 1 and sympy.isprime(p)
+        assert {p - 1, p, p + 1} <= points
+    for role_name in ("is_prime", "next_prime", "prev_prime", "factor"):
+        assert "base-divisors" in roles.get(role_name).families
+
+
+def test_pseudoprimes_hold_the_least_pseudoprimes_of_deterministic_base_sets():
+    points = set(_family("pseudoprimes", ceiling=2**64))
+    for n, bases in ((9080191, (31, 73)), (4759123141, (2, 7, 61)),
+                     (1122004669633, (2, 13, 23, 1662803))):    # Jaeschke 1993, from memory
+        assert n in points and not sympy.isprime(n)
+        assert all(sympy_mr(n, [a]) for a in bases)
+
+
+def test_sieve_seams_include_decimal_and_primorial_segment_sizes():
+    points = set(_family("sieve-seams", ceiling=2**33))
+    for size in (10**6, 3 * 10**6, 30030, 510510):          # common practice: round sizes
+        assert {sympy.prevprime(size), sympy.nextprime(size)} <= points
+    assert 2999999 in points and sympy.isprime(2999999)
 
 
 def test_mersenne_and_fermat_numbers():

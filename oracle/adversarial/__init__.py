@@ -36,7 +36,9 @@ from ._smooth import smooth_numbers_between, smooth_numbers_up_to
 from ._strong_pseudoprimes import (LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES,
                                    STRONG_PSEUDOPRIMES_BASE_2, WIEFERICH_PRIMES,
                                    STRONG_PSEUDOPRIMES_BASES_2_3_5_7,
-                                   constructed_strong_pseudoprimes, strong_pseudoprimes_below)
+                                   constructed_strong_pseudoprimes, strong_pseudoprimes_below,
+                                   DETERMINISTIC_BASE_SETS, LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS,
+                                   base_divisor_primes)
 from ._twins import twin_boundary_points, twin_pairs_around_power_of_two
 
 __all__ = [
@@ -75,6 +77,9 @@ __all__ = [
     "WIEFERICH_PRIMES",
     "STRONG_PSEUDOPRIMES_BASES_2_3_5_7",
     "constructed_strong_pseudoprimes",
+    "DETERMINISTIC_BASE_SETS",
+    "LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS",
+    "base_divisor_primes",
     "strong_pseudoprimes_below",
     "twin_boundary_points",
     "twin_pairs_around_power_of_two",

@@ -104,8 +104,19 @@ def pseudoprimes(ceiling, profile, rng) -> list[int]:
     found.update(adversarial.LUCAS_PSEUDOPRIMES)
     found.update(adversarial.STRONG_LUCAS_PSEUDOPRIMES)
     found.update(adversarial.FIBONACCI_PSEUDOPRIMES)
+    # the first composite each published deterministic base set lets through beyond its bound
+    found.update(adversarial.LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS.values())
     found.update(adversarial.constructed_strong_pseudoprimes((2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37), 1))
     return _below(found, ceiling)
+
+
+def base_divisors(ceiling, profile, rng) -> list[int]:
+    """p − 2 ... p + 2 for every prime p dividing a base of a published deterministic
+    Miller–Rabin base set (:data:`oracle.adversarial.DETERMINISTIC_BASE_SETS`, e.g. 407521
+    and 299210837 divide bases of the seven-base set for n < 2^64): at n = p the base is
+    0 (mod n), a^d ≡ 0, and a routine that does not skip such a base calls the prime p
+    composite (common practice: the published sets come with that proviso)."""
+    return _below((p + d for p in adversarial.base_divisor_primes() for d in OFFSETS), ceiling)
 
 
 def carmichael(ceiling, profile, rng) -> list[int]:
@@ -294,13 +305,22 @@ def bound_starts(ceiling, profile, rng) -> list[int]:
 SEAM_EXPONENTS = tuple(range(15, 25))
 
 
+#: Segment sizes that are not powers of two (common practice: round decimal sizes 10^4 ...
+#: 10^7, and multiples of the primorials 30030 = 2·3·5·7·11·13 and 510510, which let a wheel
+#: pattern repeat exactly from one segment to the next).
+DECIMAL_AND_WHEEL_SEGMENTS = (10**4, 10**5, 10**6, 10**7, 30030, 30030 * 16, 510510,
+                              510510 * 4)
+
+
 def sieve_seams(ceiling, profile, rng) -> list[int]:
-    """The primes nearest m·2^k (m = 1, 2, 3; k in :data:`SEAM_EXPONENTS`) with their
+    """The primes nearest m·S (m = 1, 2, 3) for the segment sizes S = 2^k, k in
+    :data:`SEAM_EXPONENTS`, and S in :data:`DECIMAL_AND_WHEEL_SEGMENTS`, with their
     neighbours: a segment ending or starting at a prime drops or repeats it."""
     found = set()
-    for k in SEAM_EXPONENTS:
+    sizes = [2**k for k in SEAM_EXPONENTS] + list(DECIMAL_AND_WHEEL_SEGMENTS)
+    for size in sizes:
         for m in (1, 2, 3):
-            for p in adversarial.primes_around(m * 2**k, 1):
+            for p in adversarial.primes_around(m * size, 1):
                 found.update((p - 1, p, p + 1))
     return _below(found, ceiling)
 
@@ -438,7 +458,7 @@ def log_uniform(ceiling, profile, rng) -> list[int]:
 FAMILIES = {
     "exhaustive": exhaustive, "boundaries": boundaries, "primes": primes, "squares": squares,
     "segments": segments, "gaps": gaps, "twins": twins, "pseudoprimes": pseudoprimes,
-    "carmichael": carmichael, "semiprimes": semiprimes, "smooth": smooth,
+    "carmichael": carmichael, "base-divisors": base_divisors, "semiprimes": semiprimes, "smooth": smooth,
     "certified": certified, "prime-indices": prime_indices, "uniform": uniform,
     "log-uniform": log_uniform, "answer-words": answer_words,
     "twin-answer-words": twin_answer_words, "prime-powers": prime_powers,
