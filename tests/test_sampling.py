@@ -190,6 +190,17 @@ def test_pseudoprimes_hold_the_least_pseudoprimes_of_deterministic_base_sets():
         assert all(sympy_mr(n, [a]) for a in bases)
 
 
+def test_pseudoprimes_fool_the_first_k_prime_bases_above_the_ceilings():
+    built = _families._first_prime_bases_pseudoprimes()
+    assert len(built) == len(_families.FIRST_PRIME_BASE_COUNTS)
+    for k, n in zip(_families.FIRST_PRIME_BASE_COUNTS, built):
+        bases = list(sympy.primerange(2, sympy.prime(k) + 1))
+        assert len(bases) == k and not sympy.isprime(n)
+        assert sympy_mr(n, bases)                       # sympy's strong test to every base
+    points = set(_family("pseudoprimes", ceiling=2**2048))
+    assert set(built) <= points
+
+
 def test_sieve_seams_include_decimal_and_primorial_segment_sizes():
     points = set(_family("sieve-seams", ceiling=2**33))
     for size in (10**6, 3 * 10**6, 30030, 510510):          # common practice: round sizes

@@ -106,8 +106,30 @@ def pseudoprimes(ceiling, profile, rng) -> list[int]:
     found.update(adversarial.FIBONACCI_PSEUDOPRIMES)
     # the first composite each published deterministic base set lets through beyond its bound
     found.update(adversarial.LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS.values())
-    found.update(adversarial.constructed_strong_pseudoprimes((2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37), 1))
+    found.update(_first_prime_bases_pseudoprimes())
     return _below(found, ceiling)
+
+
+#: k for which a Miller–Rabin routine to "the first k primes" is built against: a fixed set
+#: of the first 12 ... 50 prime bases, used at every size, is common practice (Maple's isprime
+#: fell to Arnault's number for the primes below 100, i.e. k = 25: F. Arnault 1995).
+FIRST_PRIME_BASE_COUNTS = (12, 13, 16, 20, 25, 32, 40, 50)
+
+
+@functools.lru_cache(maxsize=1)
+def _first_prime_bases_pseudoprimes() -> tuple[int, ...]:
+    """One strong pseudoprime to the first k prime bases for each k of
+    :data:`FIRST_PRIME_BASE_COUNTS`, by Arnault's construction
+    (:func:`oracle.adversarial.constructed_strong_pseudoprimes`): about 200 bits for
+    k = 12, 1000 bits for k = 50 -- above the sampled ceilings, so the climb by bit size
+    asks them (:mod:`oracle.engine._reach_bits`); about 1 s to build, once per process."""
+    from ..exact.primality import next_prime
+
+    bases = [2]
+    while len(bases) < max(FIRST_PRIME_BASE_COUNTS):
+        bases.append(next_prime(bases[-1]))
+    return tuple(adversarial.constructed_strong_pseudoprimes(tuple(bases[:k]), 1)[0]
+                 for k in FIRST_PRIME_BASE_COUNTS)
 
 
 def base_divisors(ceiling, profile, rng) -> list[int]:
