@@ -197,8 +197,11 @@ def test_pseudoprimes_fool_the_first_k_prime_bases_above_the_ceilings():
         bases = list(sympy.primerange(2, sympy.prime(k) + 1))
         assert len(bases) == k and not sympy.isprime(n)
         assert sympy_mr(n, bases)                       # sympy's strong test to every base
-    points = set(_family("pseudoprimes", ceiling=2**2048))
-    assert set(built) <= points
+    assert set(_family("first-prime-bases", ceiling=2**2048)) == set(built)
+    assert not _family("first-prime-bases", ceiling=2**128)
+    from oracle.engine import _reach_bits
+    assert set(built) <= set(_reach_bits._pseudoprimes_above(2**128, "is_prime"))
+    assert not set(built) & set(_reach_bits._pseudoprimes_above(2**66, "factor")) - {built[0]}
 
 
 def test_sieve_seams_include_decimal_and_primorial_segment_sizes():

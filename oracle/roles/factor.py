@@ -135,7 +135,8 @@ ROLE = Role(
     name="factor", arity=1, minimum=1, counting=False,
     signature="factor(n) -> {p: e} | [p, p, q] | [(p, e)]: n >= 1, factor(1) empty",
     normalise=_normalise, judge=_judge, invalid_inputs=((0,), (-6,)),
-    families=("exhaustive", "tables", "primes", "squares", "carmichael", "pseudoprimes", "base-divisors",
+    families=("exhaustive", "tables", "primes", "squares", "carmichael", "pseudoprimes",
+              "base-divisors",
               "semiprimes", "smooth", "certified", "boundaries", "uniform", "log-uniform",
               "prime-powers", "mersenne-fermat", "factor-shapes", "trial-bounds", "constructed"),
 )

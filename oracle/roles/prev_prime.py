@@ -10,7 +10,8 @@ ROLE = Role(
     signature="prev_prime(n) -> int: the largest prime < n, n >= 3",
     normalise=normalise_prime, judge=judge_neighbour("prev_prime"),
     invalid_inputs=((2,), (1,), (0,)),
-    families=("exhaustive", "primes", "gaps", "boundaries", "twins", "pseudoprimes", "base-divisors",
+    families=("exhaustive", "primes", "gaps", "boundaries", "twins", "pseudoprimes",
+              "base-divisors", "first-prime-bases",
               "uniform", "log-uniform",
               "prime-powers", "pseudoprime-neighbours", "mersenne-fermat"),
 )
