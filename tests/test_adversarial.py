@@ -270,6 +270,32 @@ def test_fibonacci_pseudoprime_search_matches_a081264_and_the_definition():
     assert found == [n for n in range(3, limit, 2) if is_fibonacci_pseudoprime(n)]
 
 
+# OEIS A013998, Perrin pseudoprimes, first 6 terms (from memory, copied independently).
+A013998 = [271441, 904631, 16532714, 24658561, 27422714, 27664033]
+
+
+def perrin_mod(n: int) -> int:
+    """P(n) mod n by the recurrence's 3x3 companion matrix raised to the n-th power."""
+    def times(a, b):
+        return [[sum(a[i][k] * b[k][j] for k in range(3)) % n for j in range(3)] for i in range(3)]
+    power, result, e = [[0, 1, 1], [1, 0, 0], [0, 1, 0]], [[1, 0, 0], [0, 1, 0], [0, 0, 1]], n
+    while e:
+        if e & 1:
+            result = times(result, power)
+        power, e = times(power, power), e >> 1
+    # (P(n + 2), P(n + 1), P(n)) = M**n (P(2), P(1), P(0)) = M**n (2, 0, 3)
+    return (result[2][0] * 2 + result[2][2] * 3) % n
+
+
+def test_perrin_pseudoprimes_have_the_defining_property():
+    assert list(adversarial.PERRIN_PSEUDOPRIMES[:6]) == A013998
+    assert all(perrin_mod(p) == 0 for p in sympy.primerange(2, 2000))   # p | P(p) for primes
+    assert [n for n in range(2, 3000) if perrin_mod(n) == 0 and not sympy.isprime(n)] == []
+    for n in adversarial.PERRIN_PSEUDOPRIMES:
+        assert perrin_mod(n) == 0 and not sympy.isprime(n)
+    assert sympy.factorint(271441) == {521: 2}
+
+
 def test_published_lucas_constants_have_their_defining_property():
     assert all(sympy_primetest.is_lucas_prp(n) for n in adversarial.LUCAS_PSEUDOPRIMES)
     assert all(sympy_primetest.is_strong_lucas_prp(n) for n in adversarial.STRONG_LUCAS_PSEUDOPRIMES)

@@ -204,6 +204,11 @@ def test_pseudoprimes_fool_the_first_k_prime_bases_above_the_ceilings():
     assert not set(built) & set(_reach_bits._pseudoprimes_above(2**66, "factor")) - {built[0]}
 
 
+def test_pseudoprimes_include_perrin_pseudoprimes():
+    points = set(_family("pseudoprimes", ceiling=2**64))
+    assert {271441, 904631} <= points and sympy.factorint(271441) == {521: 2}   # OEIS A013998
+
+
 def test_sieve_seams_include_decimal_and_primorial_segment_sizes():
     points = set(_family("sieve-seams", ceiling=2**33))
     for size in (10**6, 3 * 10**6, 30030, 510510):          # common practice: round sizes

@@ -26,7 +26,7 @@ from ._carmichael import (CARMICHAEL_NUMBERS, CHERNICK_CARMICHAEL_NUMBERS,
 from ._constructed import ConstructedNumber, construct, known, register
 from ._certified import (PrimeCertificate, certified_prime, certified_primes,
                          certified_product, verify_certificate)
-from ._lucas_pseudoprimes import (FIBONACCI_PSEUDOPRIMES, LUCAS_PSEUDOPRIMES,
+from ._lucas_pseudoprimes import (FIBONACCI_PSEUDOPRIMES, LUCAS_PSEUDOPRIMES, PERRIN_PSEUDOPRIMES,
                                   STRONG_LUCAS_PSEUDOPRIMES, fibonacci_pseudoprimes_below,
                                   lucas_pseudoprimes_below, strong_lucas_pseudoprimes_below)
 from ._near_powers import (WORD_BOUNDARIES, float_square_root_traps, near_squares_around,
@@ -56,6 +56,7 @@ __all__ = [
     "certified_product",
     "verify_certificate",
     "FIBONACCI_PSEUDOPRIMES",
+    "PERRIN_PSEUDOPRIMES",
     "LUCAS_PSEUDOPRIMES",
     "STRONG_LUCAS_PSEUDOPRIMES",
     "fibonacci_pseudoprimes_below",

@@ -104,6 +104,7 @@ def pseudoprimes(ceiling, profile, rng) -> list[int]:
     found.update(adversarial.LUCAS_PSEUDOPRIMES)
     found.update(adversarial.STRONG_LUCAS_PSEUDOPRIMES)
     found.update(adversarial.FIBONACCI_PSEUDOPRIMES)
+    found.update(adversarial.PERRIN_PSEUDOPRIMES)
     # the first composite each published deterministic base set lets through beyond its bound
     found.update(adversarial.LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS.values())
     found.update(adversarial.constructed_strong_pseudoprimes((2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37), 1))
