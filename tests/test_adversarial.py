@@ -134,6 +134,17 @@ def test_search_finds_least_strong_pseudoprime_to_bases_31_and_73():
     assert adversarial.strong_pseudoprimes_below(9080191 + 1, (31, 73)) == [9080191]
 
 
+@pytest.mark.slow
+def test_least_pseudoprimes_without_small_factors_by_exhaustive_search():
+    found = {}
+    for (bases, limit), n in adversarial.STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS.items():
+        # the defining test written out here (sympy's strong test), odd n from 9 on
+        least = next(m for m in range(9, n + 1, 2) if passes_strong_test(m, bases)
+                     and not sympy.isprime(m) and min(sympy.factorint(m)) > limit)
+        found[(bases, limit)] = least
+    assert found == {((2, 3), 1000): 2284453}       # 2284453 = 1069 * 2137 (sympy)
+
+
 def test_base_divisor_primes_are_the_primes_dividing_the_published_bases():
     expected = set()
     for bases, _bound in adversarial.DETERMINISTIC_BASE_SETS:

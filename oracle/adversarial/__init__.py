@@ -38,7 +38,7 @@ from ._strong_pseudoprimes import (LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES,
                                    STRONG_PSEUDOPRIMES_BASES_2_3_5_7,
                                    constructed_strong_pseudoprimes, strong_pseudoprimes_below,
                                    DETERMINISTIC_BASE_SETS, LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS,
-                                   base_divisor_primes)
+                                   base_divisor_primes, STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS)
 from ._twins import twin_boundary_points, twin_pairs_around_power_of_two
 
 __all__ = [
@@ -81,6 +81,7 @@ __all__ = [
     "DETERMINISTIC_BASE_SETS",
     "LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS",
     "base_divisor_primes",
+    "STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS",
     "strong_pseudoprimes_below",
     "twin_boundary_points",
     "twin_pairs_around_power_of_two",

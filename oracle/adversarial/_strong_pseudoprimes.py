@@ -48,6 +48,7 @@ __all__ = [
     "DETERMINISTIC_BASE_SETS",
     "LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS",
     "base_divisor_primes",
+    "STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS",
 ]
 
 #: OEIS A001262, strong pseudoprimes to base 2: every term below 2 * 10**6 (73 terms; the
@@ -122,6 +123,17 @@ LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS = {
     (2, 13, 23, 1662803): 1122004669633,   # 611557 * 1834669
     (2, 3, 7, 61, 24251): 46856248255981,  # 4840261 * 9680521
 }
+
+
+#: The least strong pseudoprime to the first k prime bases with no prime factor below L, where
+#: it differs from A014233(k) and from the terms of the tables above (found by exhaustive
+#: search with gmpy2's strong test, re-derived in the tests): a routine that trial-divides
+#: below L before its Miller--Rabin rounds first errs there.  For bases (2, 3): 1373653 =
+#: 829 * 1657 is the least overall, 2284453 = 1069 * 2137 the least without a factor below
+#: 1000 (common practice: a table of the primes below 1000).  The other k up to 5 have it in
+#: the tables already (42799 and 1093**2 for base 2, 25326001 for 2, 3, 5, 3215031751 and
+#: 118670087467 for 2, 3, 5, 7, 2152302898747 for the first five primes).
+STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS = {((2, 3), 1000): 2284453}
 
 
 def base_divisor_primes() -> list[int]:

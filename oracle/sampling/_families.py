@@ -107,6 +107,8 @@ def pseudoprimes(ceiling, profile, rng) -> list[int]:
     found.update(adversarial.PERRIN_PSEUDOPRIMES)
     # the first composite each published deterministic base set lets through beyond its bound
     found.update(adversarial.LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS.values())
+    # ... and the first one a routine trial-dividing below 1000 beforehand lets through
+    found.update(adversarial.STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS.values())
     found.update(adversarial.constructed_strong_pseudoprimes((2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37), 1))
     return _below(found, ceiling)
 
