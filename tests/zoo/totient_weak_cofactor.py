@@ -71,6 +71,8 @@ def _factor(m, exponent, found):
 
 
 def totient(n):
+    if n < 1:
+        raise ValueError(f"totient({n}): n must be positive")
     found = {}
     for p in SMALL_PRIMES:
         while n % p == 0:
