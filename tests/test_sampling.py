@@ -209,6 +209,33 @@ def test_pseudoprimes_include_perrin_pseudoprimes():
     assert {271441, 904631} <= points and sympy.factorint(271441) == {521: 2}   # OEIS A013998
 
 
+#: OEIS A002182, highly composite numbers, first 38 terms (from memory).
+A002182 = (1, 2, 4, 6, 12, 24, 36, 48, 60, 120, 180, 240, 360, 720, 840, 1260, 1680, 2520, 5040,
+           7560, 10080, 15120, 20160, 25200, 27720, 45360, 50400, 55440, 83160, 110880, 166320,
+           221760, 277200, 332640, 498960, 554400, 665280, 720720)
+
+
+def test_highly_composite_numbers_are_the_records_of_the_divisor_count():
+    found = _families._highly_composite_up_to(2**66)
+    assert found[:len(A002182)] == A002182
+    # every record of d(n) up to 10**5 by brute force with sympy
+    records, best = [], 0
+    for n in range(1, 10**5 + 1):
+        d = sympy.divisor_count(n)
+        if d > best:
+            records.append(n)
+            best = d
+    assert [n for n in found if n <= 10**5] == records
+    counts = [sympy.divisor_count(n) for n in found]
+    assert counts == sorted(set(counts))               # strictly increasing
+    first_wide = next(n for n, d in zip(found, counts) if d >= 2**16)
+    assert sympy.divisor_count(first_wide) >= 2**16 and sympy.divisor_count(first_wide - 1) < 2**16
+    points = set(_family("highly-composite", ceiling=2**66))
+    assert {first_wide - 1, first_wide, first_wide + 1} <= points
+    for role_name in ("mobius", "totient", "divisor_count", "divisor_sum"):
+        assert "highly-composite" in roles.get(role_name).families
+
+
 def test_sieve_seams_include_decimal_and_primorial_segment_sizes():
     points = set(_family("sieve-seams", ceiling=2**33))
     for size in (10**6, 3 * 10**6, 30030, 510510):          # common practice: round sizes

@@ -20,7 +20,7 @@ from ._role import Conventions, Role, Verdict, as_integer, exact_verdict
 #: ``pseudoprimes`` and ``base-divisors``: the factorisation behind μ, φ, d and σ usually
 #: hands a cofactor to a Miller–Rabin test, which these fool (common practice).
 FAMILIES = ("exhaustive", "primes", "squares", "prime-powers", "semiprimes", "smooth",
-            "carmichael", "pseudoprimes", "base-divisors", "boundaries", "uniform", "log-uniform", "factor-shapes",
+            "carmichael", "pseudoprimes", "base-divisors", "highly-composite", "boundaries", "uniform", "log-uniform", "factor-shapes",
             "trial-bounds", "constructed")
 
 

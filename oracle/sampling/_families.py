@@ -442,6 +442,48 @@ def _random_prime(bits: int, rng) -> int:
     return next_prime(rng.randrange(2**(bits - 1), 2**bits - 2**(bits - 2)))
 
 
+#: The primes a highly composite number below 2^128 can be built from (common practice).
+_HCN_PRIMES = (2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47, 53, 59, 61, 67, 71, 73,
+               79, 83, 89, 97, 101, 103, 107, 109, 113)
+
+
+@functools.lru_cache(maxsize=4)
+def _highly_composite_up_to(limit: int) -> tuple[int, ...]:
+    """The highly composite numbers n ≤ ``limit`` (OEIS A002182: d(n) > d(m) for every
+    m < n), by enumerating the products 2^a·3^b·5^c··· with non-increasing exponents (OEIS
+    A025487, among which every record of d lies: Ramanujan 1915) and keeping the records."""
+    found: list[tuple[int, int]] = []
+
+    def extend(index: int, n: int, divisors: int, most: int) -> None:
+        found.append((n, divisors))
+        if index == len(_HCN_PRIMES):
+            return
+        m = n
+        for e in range(1, most + 1):
+            m *= _HCN_PRIMES[index]
+            if m > limit:
+                break
+            extend(index + 1, m, divisors * (e + 1), e)
+
+    extend(0, 1, 1, limit.bit_length())
+    records, best = [], 0
+    for n, divisors in sorted(found):
+        if divisors > best:
+            records.append(n)
+            best = divisors
+    return tuple(records)
+
+
+def highly_composite(ceiling, profile, rng) -> list[int]:
+    """The highly composite numbers up to the ceiling (about 180 below 2^66), with n ± 1:
+    d(n) passes 2^8, 2^15, 2^16 (first at 2888071057872000: d = 2^15) and σ(n)/n is at its
+    largest there, so a divisor count or sum kept in a narrow word, and a loop over the
+    distinct prime factors sized for a few of them, go wrong on them first (common
+    practice)."""
+    return _below((n + d for n in _highly_composite_up_to(min(ceiling, 2**128))
+                   for d in (-1, 0, 1)), ceiling)
+
+
 #: Sizes in bits of the constructed numbers of the sampled family (those up to the ceiling).
 CONSTRUCTED_BITS = (40, 48, 56, 64, 66, 80, 100, 128)
 
@@ -492,7 +534,7 @@ FAMILIES = {
     "exhaustive": exhaustive, "boundaries": boundaries, "primes": primes, "squares": squares,
     "segments": segments, "gaps": gaps, "twins": twins, "pseudoprimes": pseudoprimes,
     "carmichael": carmichael, "base-divisors": base_divisors,
-    "first-prime-bases": first_prime_bases, "semiprimes": semiprimes, "smooth": smooth,
+    "first-prime-bases": first_prime_bases, "highly-composite": highly_composite, "semiprimes": semiprimes, "smooth": smooth,
     "certified": certified, "prime-indices": prime_indices, "uniform": uniform,
     "log-uniform": log_uniform, "answer-words": answer_words,
     "twin-answer-words": twin_answer_words, "prime-powers": prime_powers,
