@@ -232,7 +232,9 @@ def test_highly_composite_numbers_are_the_records_of_the_divisor_count():
     assert sympy.divisor_count(first_wide) >= 2**16 and sympy.divisor_count(first_wide - 1) < 2**16
     points = set(_family("highly-composite", ceiling=2**66))
     assert {first_wide - 1, first_wide, first_wide + 1} <= points
-    for role_name in ("mobius", "totient", "divisor_count", "divisor_sum"):
+    # primorials, OEIS A002110: 2 * 3 * ... * 47 = 614889782588491410 has 15 prime factors
+    assert 614889782588491410 in points and len(sympy.factorint(614889782588491410)) == 15
+    for role_name in ("mobius", "totient", "divisor_count", "divisor_sum", "factor"):
         assert "highly-composite" in roles.get(role_name).families
 
 

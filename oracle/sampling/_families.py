@@ -474,14 +474,27 @@ def _highly_composite_up_to(limit: int) -> tuple[int, ...]:
     return tuple(records)
 
 
+def _primorials_up_to(limit: int) -> list[int]:
+    """2, 2·3, 2·3·5, ... up to ``limit`` (OEIS A002110): the most distinct prime factors."""
+    found, n = [], 1
+    for p in _HCN_PRIMES:
+        n *= p
+        if n > limit:
+            break
+        found.append(n)
+    return found
+
+
 def highly_composite(ceiling, profile, rng) -> list[int]:
-    """The highly composite numbers up to the ceiling (about 180 below 2^66), with n ± 1:
-    d(n) passes 2^8, 2^15, 2^16 (first at 2888071057872000: d = 2^15) and σ(n)/n is at its
-    largest there, so a divisor count or sum kept in a narrow word, and a loop over the
-    distinct prime factors sized for a few of them, go wrong on them first (common
-    practice)."""
-    return _below((n + d for n in _highly_composite_up_to(min(ceiling, 2**128))
-                   for d in (-1, 0, 1)), ceiling)
+    """The highly composite numbers up to the ceiling (about 180 below 2^66) and the
+    primorials (OEIS A002110; 15 distinct primes below 2^64), with n ± 1: d(n) passes 2^8,
+    2^15, 2^16 (first at 2888071057872000: d = 2^15) and σ(n)/n is at its largest there, and
+    ω(n) is at its largest at the primorials, so a divisor count or sum kept in a narrow
+    word, and an array of the distinct prime factors sized for a few of them, go wrong on
+    them first (common practice)."""
+    top = min(ceiling, 2**128)
+    numbers = set(_highly_composite_up_to(top)) | set(_primorials_up_to(top))
+    return _below((n + d for n in numbers for d in (-1, 0, 1)), ceiling)
 
 
 #: Sizes in bits of the constructed numbers of the sampled family (those up to the ceiling).
