@@ -6,6 +6,7 @@ first is 2999999, then 5999999, 8999999, ...  Ranges containing no such prime
 come out right.  Sieving primes are kept up to 10**6, so it claims b <= 10**12.
 """
 
+import itertools
 import math
 
 SEGMENT = 10**6
@@ -32,7 +33,9 @@ def _sieve(low, high):
             break
         start = max(p * p, (low + p - 1) // p * p)
         flags[start - low::p] = bytes(len(range(start - low, high - low + 1, p)))
-    return [low + i for i, flag in enumerate(flags) if flag and low + i >= 2]
+    if low < 2:
+        flags[:2 - low] = bytes(min(2 - low, len(flags)))
+    return list(itertools.compress(range(low, high + 1), flags))
 
 
 def primes_in(a, b):
