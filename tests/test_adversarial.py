@@ -112,6 +112,53 @@ def test_published_tables_have_the_defining_property():
         assert passes_strong_test(p * p, (2,))
 
 
+# Least strong pseudoprimes to the base sets published as deterministic below a bound
+# (G. Jaeschke 1993, Math. Comp. 61; the last from the Prime Pages), copied here from memory,
+# independently of the module's constants.
+LEAST_SPSP_OF_BASE_SETS = {(31, 73): 9080191, (2, 7, 61): 4759123141,
+                           (2, 13, 23, 1662803): 1122004669633,
+                           (2, 3, 7, 61, 24251): 46856248255981}
+
+
+def test_least_pseudoprimes_of_deterministic_base_sets_have_the_defining_property():
+    assert adversarial.LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS == LEAST_SPSP_OF_BASE_SETS
+    published = {bases: bound for bases, bound in adversarial.DETERMINISTIC_BASE_SETS}
+    for bases, n in LEAST_SPSP_OF_BASE_SETS.items():
+        assert not sympy.isprime(n) and passes_strong_test(n, bases)     # sympy's strong test
+        assert len(sympy.factorint(n)) == 2
+        assert n >= published[bases] or bases == (2, 3, 7, 61, 24251)   # the one exception
+
+
+@pytest.mark.slow
+def test_search_finds_least_strong_pseudoprime_to_bases_31_and_73():
+    assert adversarial.strong_pseudoprimes_below(9080191 + 1, (31, 73)) == [9080191]
+
+
+@pytest.mark.slow
+def test_least_pseudoprimes_without_small_factors_by_exhaustive_search():
+    found = {}
+    for (bases, limit), n in adversarial.STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS.items():
+        # the defining test written out here (sympy's strong test), odd n from 9 on
+        least = next(m for m in range(9, n + 1, 2) if passes_strong_test(m, bases)
+                     and not sympy.isprime(m) and min(sympy.factorint(m)) > limit)
+        found[(bases, limit)] = least
+    assert found == {((2, 3), 1000): 2284453}       # 2284453 = 1069 * 2137 (sympy)
+
+
+def test_base_divisor_primes_are_the_primes_dividing_the_published_bases():
+    expected = set()
+    for bases, _bound in adversarial.DETERMINISTIC_BASE_SETS:
+        for base in bases:
+            expected.update(sympy.factorint(base))
+    found = adversarial.base_divisor_primes()
+    assert found == sorted(expected)
+    # the seven-base set for n < 2**64: 9780504 = 2**3 * 3 * 407521, 1795265022 = 2 * 3 * 299210837
+    assert {407521, 299210837, 73, 193} <= set(found)
+    for p, base in ((407521, 9780504), (299210837, 1795265022)):
+        # the base is 0 mod p, so a**d = 0 (mod p): an unskipped base calls the prime p composite
+        assert sympy.isprime(p) and pow(base, p - 1, p) == 0
+
+
 def _strong_to_base_2(n: int) -> bool:
     """The defining test, written out here (independent of the library's search)."""
     d, s = n - 1, 0
@@ -232,6 +279,32 @@ def test_fibonacci_pseudoprime_search_matches_a081264_and_the_definition():
     found = adversarial.fibonacci_pseudoprimes_below(limit)
     assert found[:len(A081264)] == A081264
     assert found == [n for n in range(3, limit, 2) if is_fibonacci_pseudoprime(n)]
+
+
+# OEIS A013998, Perrin pseudoprimes, first 6 terms (from memory, copied independently).
+A013998 = [271441, 904631, 16532714, 24658561, 27422714, 27664033]
+
+
+def perrin_mod(n: int) -> int:
+    """P(n) mod n by the recurrence's 3x3 companion matrix raised to the n-th power."""
+    def times(a, b):
+        return [[sum(a[i][k] * b[k][j] for k in range(3)) % n for j in range(3)] for i in range(3)]
+    power, result, e = [[0, 1, 1], [1, 0, 0], [0, 1, 0]], [[1, 0, 0], [0, 1, 0], [0, 0, 1]], n
+    while e:
+        if e & 1:
+            result = times(result, power)
+        power, e = times(power, power), e >> 1
+    # (P(n + 2), P(n + 1), P(n)) = M**n (P(2), P(1), P(0)) = M**n (2, 0, 3)
+    return (result[2][0] * 2 + result[2][2] * 3) % n
+
+
+def test_perrin_pseudoprimes_have_the_defining_property():
+    assert list(adversarial.PERRIN_PSEUDOPRIMES[:6]) == A013998
+    assert all(perrin_mod(p) == 0 for p in sympy.primerange(2, 2000))   # p | P(p) for primes
+    assert [n for n in range(2, 3000) if perrin_mod(n) == 0 and not sympy.isprime(n)] == []
+    for n in adversarial.PERRIN_PSEUDOPRIMES:
+        assert perrin_mod(n) == 0 and not sympy.isprime(n)
+    assert sympy.factorint(271441) == {521: 2}
 
 
 def test_published_lucas_constants_have_their_defining_property():

@@ -194,3 +194,20 @@ def test_findings_of_an_interrupted_run_are_saved(tmp_path):
     assert [e["arguments"] for e in engine.load_corpus(tmp_path / "regressions.yaml")] == [[1000]]
     last = engine.read_records(tmp_path / "r.jsonl")[-1]
     assert last["type"] == "interrupted"        # pi(1000) = 168 (OEIS A006880) was the finding
+
+
+def test_the_first_call_has_an_answer_unlike_a_default():
+    # a candidate wrong on its first call in a process answers 0, false or [] there, which is
+    # right at 0: the opening call is 97 (prime) or the interval [0, 40] instead
+    from oracle import roles, sampling
+    from oracle.engine._audit import _opening_first
+
+    for name, opening in (("is_prime", (97,)), ("prime_pi", (97,)), ("primes_in", (0, 40)),
+                          ("mobius", (97,))):
+        role = roles.get(name)
+        ordered = _opening_first(sorted(sampling.sample(role, sampling.profile("quick"), 1),
+                                        key=lambda s: role.magnitude(s.arguments)), role)
+        assert ordered[0].arguments == opening
+        assert sorted(s.arguments for s in ordered) == sorted(
+            s.arguments for s in sampling.sample(role, sampling.profile("quick"), 1))
+

@@ -95,6 +95,8 @@ import sympy
 
 from oracle.sampling import _families
 
+from sympy.ntheory.primetest import mr as sympy_mr
+
 from _references import reference
 
 #: OEIS A051439, prime(2^k + 1) for k = 0..28 (data section, read with the search tool).
@@ -167,6 +169,80 @@ def test_sieve_seams_are_primes_at_segment_multiples_and_sieving_prime_starts():
     starts = [(a, b) for a, b in intervals if sympy.isprime(a)]
     assert len(starts) >= 40 and all(a * a <= b or a + 1 in (3,) for a, b in starts)
     assert {(1021, 2**20), (1020, 2**20), (1021, 1021**2)} <= set(intervals)
+
+
+def test_base_divisors_hold_the_primes_dividing_published_miller_rabin_bases():
+    points = set(_family("base-divisors", ceiling=2**64))
+    # 9780504 = 2**3 * 3 * 407521 and 1795265022 = 2 * 3 * 299210837 (sympy), bases of the
+    # seven-base set for n < 2**64
+    for base, p in ((9780504, 407521), (1795265022, 299210837)):
+        assert sympy.factorint(base)[p] == 1 and sympy.isprime(p)
+        assert {p - 1, p, p + 1} <= points
+    for role_name in ("is_prime", "next_prime", "prev_prime", "factor"):
+        assert "base-divisors" in roles.get(role_name).families
+
+
+def test_pseudoprimes_hold_the_least_pseudoprimes_of_deterministic_base_sets():
+    points = set(_family("pseudoprimes", ceiling=2**64))
+    for n, bases in ((9080191, (31, 73)), (4759123141, (2, 7, 61)),
+                     (1122004669633, (2, 13, 23, 1662803))):    # Jaeschke 1993, from memory
+        assert n in points and not sympy.isprime(n)
+        assert all(sympy_mr(n, [a]) for a in bases)
+
+
+def test_pseudoprimes_fool_the_first_k_prime_bases_above_the_ceilings():
+    built = _families._first_prime_bases_pseudoprimes()
+    assert len(built) == len(_families.FIRST_PRIME_BASE_COUNTS)
+    for k, n in zip(_families.FIRST_PRIME_BASE_COUNTS, built):
+        bases = list(sympy.primerange(2, sympy.prime(k) + 1))
+        assert len(bases) == k and not sympy.isprime(n)
+        assert sympy_mr(n, bases)                       # sympy's strong test to every base
+    assert set(_family("first-prime-bases", ceiling=2**2048)) == set(built)
+    assert not _family("first-prime-bases", ceiling=2**128)
+    from oracle.engine import _reach_bits
+    assert set(built) <= set(_reach_bits._pseudoprimes_above(2**128, "is_prime"))
+    assert not set(built) & set(_reach_bits._pseudoprimes_above(2**66, "factor")) - {built[0]}
+
+
+def test_pseudoprimes_include_perrin_pseudoprimes():
+    points = set(_family("pseudoprimes", ceiling=2**64))
+    assert {271441, 904631} <= points and sympy.factorint(271441) == {521: 2}   # OEIS A013998
+
+
+#: OEIS A002182, highly composite numbers, first 38 terms (from memory).
+A002182 = (1, 2, 4, 6, 12, 24, 36, 48, 60, 120, 180, 240, 360, 720, 840, 1260, 1680, 2520, 5040,
+           7560, 10080, 15120, 20160, 25200, 27720, 45360, 50400, 55440, 83160, 110880, 166320,
+           221760, 277200, 332640, 498960, 554400, 665280, 720720)
+
+
+def test_highly_composite_numbers_are_the_records_of_the_divisor_count():
+    found = _families._highly_composite_up_to(2**66)
+    assert found[:len(A002182)] == A002182
+    # every record of d(n) up to 10**5 by brute force with sympy
+    records, best = [], 0
+    for n in range(1, 10**5 + 1):
+        d = sympy.divisor_count(n)
+        if d > best:
+            records.append(n)
+            best = d
+    assert [n for n in found if n <= 10**5] == records
+    counts = [sympy.divisor_count(n) for n in found]
+    assert counts == sorted(set(counts))               # strictly increasing
+    first_wide = next(n for n, d in zip(found, counts) if d >= 2**16)
+    assert sympy.divisor_count(first_wide) >= 2**16 and sympy.divisor_count(first_wide - 1) < 2**16
+    points = set(_family("highly-composite", ceiling=2**66))
+    assert {first_wide - 1, first_wide, first_wide + 1} <= points
+    # primorials, OEIS A002110: 2 * 3 * ... * 47 = 614889782588491410 has 15 prime factors
+    assert 614889782588491410 in points and len(sympy.factorint(614889782588491410)) == 15
+    for role_name in ("mobius", "totient", "divisor_count", "divisor_sum", "factor"):
+        assert "highly-composite" in roles.get(role_name).families
+
+
+def test_sieve_seams_include_decimal_and_primorial_segment_sizes():
+    points = set(_family("sieve-seams", ceiling=2**33))
+    for size in (10**6, 3 * 10**6, 30030, 510510):          # common practice: round sizes
+        assert {sympy.prevprime(size), sympy.nextprime(size)} <= points
+    assert 2999999 in points and sympy.isprime(2999999)
 
 
 def test_mersenne_and_fermat_numbers():

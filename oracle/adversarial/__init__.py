@@ -26,7 +26,7 @@ from ._carmichael import (CARMICHAEL_NUMBERS, CHERNICK_CARMICHAEL_NUMBERS,
 from ._constructed import ConstructedNumber, construct, known, register
 from ._certified import (PrimeCertificate, certified_prime, certified_primes,
                          certified_product, verify_certificate)
-from ._lucas_pseudoprimes import (FIBONACCI_PSEUDOPRIMES, LUCAS_PSEUDOPRIMES,
+from ._lucas_pseudoprimes import (FIBONACCI_PSEUDOPRIMES, LUCAS_PSEUDOPRIMES, PERRIN_PSEUDOPRIMES,
                                   STRONG_LUCAS_PSEUDOPRIMES, fibonacci_pseudoprimes_below,
                                   lucas_pseudoprimes_below, strong_lucas_pseudoprimes_below)
 from ._near_powers import (WORD_BOUNDARIES, float_square_root_traps, near_squares_around,
@@ -36,7 +36,9 @@ from ._smooth import smooth_numbers_between, smooth_numbers_up_to
 from ._strong_pseudoprimes import (LEAST_STRONG_PSEUDOPRIMES_FIRST_PRIME_BASES,
                                    STRONG_PSEUDOPRIMES_BASE_2, WIEFERICH_PRIMES,
                                    STRONG_PSEUDOPRIMES_BASES_2_3_5_7,
-                                   constructed_strong_pseudoprimes, strong_pseudoprimes_below)
+                                   constructed_strong_pseudoprimes, strong_pseudoprimes_below,
+                                   DETERMINISTIC_BASE_SETS, LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS,
+                                   base_divisor_primes, STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS)
 from ._twins import twin_boundary_points, twin_pairs_around_power_of_two
 
 __all__ = [
@@ -54,6 +56,7 @@ __all__ = [
     "certified_product",
     "verify_certificate",
     "FIBONACCI_PSEUDOPRIMES",
+    "PERRIN_PSEUDOPRIMES",
     "LUCAS_PSEUDOPRIMES",
     "STRONG_LUCAS_PSEUDOPRIMES",
     "fibonacci_pseudoprimes_below",
@@ -75,6 +78,10 @@ __all__ = [
     "WIEFERICH_PRIMES",
     "STRONG_PSEUDOPRIMES_BASES_2_3_5_7",
     "constructed_strong_pseudoprimes",
+    "DETERMINISTIC_BASE_SETS",
+    "LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS",
+    "base_divisor_primes",
+    "STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS",
     "strong_pseudoprimes_below",
     "twin_boundary_points",
     "twin_pairs_around_power_of_two",

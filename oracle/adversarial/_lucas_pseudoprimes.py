@@ -30,6 +30,7 @@ __all__ = [
     "LUCAS_PSEUDOPRIMES",
     "STRONG_LUCAS_PSEUDOPRIMES",
     "FIBONACCI_PSEUDOPRIMES",
+    "PERRIN_PSEUDOPRIMES",
     "lucas_pseudoprimes_below",
     "strong_lucas_pseudoprimes_below",
     "fibonacci_pseudoprimes_below",
@@ -54,6 +55,16 @@ FIBONACCI_PSEUDOPRIMES = (
     13981, 15251, 17119, 17711, 18407, 19043, 23407, 25877, 27323, 30889,
     34561, 34943, 35207, 39203, 40501, 50183, 51841, 51983, 52701, 53663,
     60377, 64079, 64681)
+
+#: OEIS A013998, Perrin pseudoprimes: composites n dividing P(n), where P(0) = 3, P(1) = 0,
+#: P(2) = 2, P(k + 3) = P(k + 1) + P(k) (a third-order Lucas-type sequence; p | P(p) for
+#: every prime p).  Every term below 10**9 (17 terms, from memory; the first, 271441, is
+#: 521**2, and 16532714, 27422714 are even); the tests re-check each by the definition.  A
+#: primality test on Perrin's criterion alone (common practice in short programs) takes them
+#: for primes.
+PERRIN_PSEUDOPRIMES = (271441, 904631, 16532714, 24658561, 27422714, 27664033, 46672291,
+                       102690901, 130944133, 196075949, 214038533, 517697641, 545670533,
+                       801123451, 855073301, 903136901, 970355431)
 
 #: The searches refuse limits above this (a Python loop over odd numbers).
 _SEARCH_LIMIT = 10**7

@@ -45,6 +45,10 @@ __all__ = [
     "strong_pseudoprimes_below",
     "WIEFERICH_PRIMES",
     "constructed_strong_pseudoprimes",
+    "DETERMINISTIC_BASE_SETS",
+    "LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS",
+    "base_divisor_primes",
+    "STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS",
 ]
 
 #: OEIS A001262, strong pseudoprimes to base 2: every term below 2 * 10**6 (73 terms; the
@@ -83,6 +87,66 @@ STRONG_PSEUDOPRIMES_BASES_2_3_5_7 = (
     3215031751, 118670087467, 307768373641, 315962312077, 354864744877,
     457453568161, 528929554561, 546348519181, 602248359169, 1362242655901,
     1871186716981, 2152302898747)
+
+#: Miller--Rabin base sets published as deterministic below a bound, and copied into many
+#: libraries (all from memory): (31, 73), (2, 7, 61) and (2, 13, 23, 1662803) from G. Jaeschke
+#: (1993, "On strong pseudoprimes to several bases", Math. Comp. 61); (2, 3, 7, 61, 24251)
+#: below 10**16 apart from one exception (Jaeschke's bound as quoted on the Prime Pages); the
+#: sets of at most seven large bases found by hashing-free searches (J. Sinclair, S. Worley
+#: and others, 2010-2011) for n < 341531, < 1050535501, < 350269456337, < 55245642489451,
+#: < 7999252175582851, < 585226005592931977 and < 2**64.  A base a with n | a gives
+#: a**d = 0 (mod n), so a routine that does not skip such a base calls the prime n composite:
+#: :func:`base_divisor_primes` lists those primes.
+DETERMINISTIC_BASE_SETS = (
+    ((31, 73), 9080191),
+    ((2, 7, 61), 4759123141),
+    ((2, 13, 23, 1662803), 1122004669633),
+    ((2, 3, 7, 61, 24251), 10**16),
+    ((9345883071009581737,), 341531),
+    ((336781006125, 9639812373923155), 1050535501),
+    ((4230279247111683200, 14694767155120705706, 16641139526367750375), 350269456337),
+    ((2, 141889084524735, 1199124725622454117, 11096072698276303650), 55245642489451),
+    ((2, 4130806001517, 149795463772692060, 186635894390467037, 3967304179347715805),
+     7999252175582851),
+    ((2, 123635709730000, 9233062284813009, 43835965440333360, 761179012939631437,
+      1263739024124850375), 585226005592931977),
+    ((2, 325, 9375, 28178, 450775, 9780504, 1795265022), 2**64),
+)
+
+#: The least strong pseudoprime to every base of a set of :data:`DETERMINISTIC_BASE_SETS`
+#: (from memory, the sources above): the first input on which the set, used beyond its
+#: bound, calls a composite prime.  The tests re-check the defining property and the
+#: factorisation, and re-derive the least one for (31, 73) by exhaustive search.
+LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS = {
+    (31, 73): 9080191,                     # 2131 * 4261
+    (2, 7, 61): 4759123141,                # 48781 * 97561
+    (2, 13, 23, 1662803): 1122004669633,   # 611557 * 1834669
+    (2, 3, 7, 61, 24251): 46856248255981,  # 4840261 * 9680521
+}
+
+
+#: The least strong pseudoprime to the first k prime bases with no prime factor below L, where
+#: it differs from A014233(k) and from the terms of the tables above (found by exhaustive
+#: search with gmpy2's strong test, re-derived in the tests): a routine that trial-divides
+#: below L before its Miller--Rabin rounds first errs there.  For bases (2, 3): 1373653 =
+#: 829 * 1657 is the least overall, 2284453 = 1069 * 2137 the least without a factor below
+#: 1000 (common practice: a table of the primes below 1000).  The other k up to 5 have it in
+#: the tables already (42799 and 1093**2 for base 2, 25326001 for 2, 3, 5, 3215031751 and
+#: 118670087467 for 2, 3, 5, 7, 2152302898747 for the first five primes).
+STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS = {((2, 3), 1000): 2284453}
+
+
+def base_divisor_primes() -> list[int]:
+    """The primes dividing some base of :data:`DETERMINISTIC_BASE_SETS` (a prime base
+    itself included), ascending; the factorisations are computed here, not stored."""
+    from ..exact.factorisation import factorise
+
+    found = set()
+    for bases, _bound in DETERMINISTIC_BASE_SETS:
+        for base in bases:
+            found.update(factorise(base, 10.0)[0])
+    return sorted(found)
+
 
 #: The exhaustive search refuses limits above this (a Python loop).
 _SEARCH_LIMIT = 10**8

@@ -62,6 +62,8 @@ LADDER = (65, 66, 72, 80, 81, 88, 96, 112, 128, 129, 160, 192, 256, 384, 512, 76
 #: The largest bit size climbed per profile (certified primes are built up to 2048 bits).
 TOP_BITS = {"quick": 512, "ci": 2048, "deep": 2048, "exhaustive": 2048}
 ROLES = ("is_prime", "next_prime", "prev_prime", "factor")
+#: The roles that also climb on the strong pseudoprimes to the first k prime bases.
+PRIMALITY_ROLES = ("is_prime", "next_prime", "prev_prime")
 #: The arithmetic-function roles, which climb on constructed numbers (their truth is known).
 CONSTRUCTED_ROLES = ("mobius", "totient", "divisor_count", "divisor_sum")
 #: Bits of the small primes multiplying the certified prime of a factor step.
@@ -79,11 +81,14 @@ PROOF_GROWTH = 8
 STEP_CALLS = 6
 
 
-def _pseudoprimes_above(ceiling: int) -> list[int]:
-    """The sampling families' pseudoprimes and Carmichael numbers above ``ceiling``."""
+def _pseudoprimes_above(ceiling: int, role_name: str) -> list[int]:
+    """The sampling families' pseudoprimes and Carmichael numbers above ``ceiling`` (with
+    the strong pseudoprimes to the first k prime bases for the primality roles)."""
     rng = random.Random(0)
     known = set(_families.pseudoprimes(2**4096, None, rng)) | set(
         _families.carmichael(2**4096, None, rng))
+    if role_name in PRIMALITY_ROLES:
+        known.update(_families.first_prime_bases(2**4096, None, rng))
     return sorted(n for n in known if n > ceiling)
 
 
@@ -131,7 +136,7 @@ def _steps(role_name: str, start: int, top_bits: int,
     so that a climb stopped early does not pay for the certificates of larger steps."""
     sizes = [bits for bits in LADDER if bits <= top_bits and 2**bits > start]
     # the arithmetic functions would need the factors of the pseudoprimes: not theirs to climb
-    pseudoprimes = _pseudoprimes_above(start) if role_name in ROLES else []
+    pseudoprimes = _pseudoprimes_above(start, role_name) if role_name in ROLES else []
     steps = []
     for index, bits in enumerate(sizes):
         lower = 2**sizes[index - 1] if index else start

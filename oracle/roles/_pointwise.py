@@ -17,8 +17,10 @@ from .. import facade
 from ._role import Conventions, Role, Verdict, as_integer, exact_verdict
 
 #: Families of every arithmetic-function role (the last one builds n from its factors).
+#: ``pseudoprimes`` and ``base-divisors``: the factorisation behind μ, φ, d and σ usually
+#: hands a cofactor to a Miller–Rabin test, which these fool (common practice).
 FAMILIES = ("exhaustive", "primes", "squares", "prime-powers", "semiprimes", "smooth",
-            "carmichael", "boundaries", "uniform", "log-uniform", "factor-shapes",
+            "carmichael", "pseudoprimes", "base-divisors", "highly-composite", "boundaries", "uniform", "log-uniform", "factor-shapes",
             "trial-bounds", "constructed")
 
 

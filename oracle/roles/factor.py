@@ -136,6 +136,7 @@ ROLE = Role(
     signature="factor(n) -> {p: e} | [p, p, q] | [(p, e)]: n >= 1, factor(1) empty",
     normalise=_normalise, judge=_judge, invalid_inputs=((0,), (-6,)),
     families=("exhaustive", "tables", "primes", "squares", "carmichael", "pseudoprimes",
+              "base-divisors", "highly-composite",
               "semiprimes", "smooth", "certified", "boundaries", "uniform", "log-uniform",
               "prime-powers", "mersenne-fermat", "factor-shapes", "trial-bounds", "constructed"),
 )

@@ -28,7 +28,8 @@ ROLE = Role(
     name="is_prime", arity=1, minimum=0, counting=False,
     signature="is_prime(n) -> bool: n >= 0; 0 and 1 are not prime",
     normalise=_normalise, judge=_judge, invalid_inputs=((-1,),),
-    families=("exhaustive", "primes", "squares", "pseudoprimes", "carmichael", "semiprimes",
+    families=("exhaustive", "primes", "squares", "pseudoprimes", "base-divisors",
+              "first-prime-bases", "carmichael", "semiprimes",
               "certified", "boundaries", "uniform", "log-uniform",
               "prime-powers", "mersenne-fermat", "trial-bounds"),
 )

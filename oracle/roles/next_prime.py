@@ -10,6 +10,7 @@ ROLE = Role(
     signature="next_prime(n) -> int: the smallest prime > n",
     normalise=normalise_prime, judge=judge_neighbour("next_prime"), invalid_inputs=((-1,),),
     families=("exhaustive", "primes", "gaps", "boundaries", "twins", "pseudoprimes",
+              "base-divisors", "first-prime-bases",
               "uniform", "log-uniform",
               "prime-powers", "pseudoprime-neighbours", "mersenne-fermat", "bound-starts"),
 )

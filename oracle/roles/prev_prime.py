@@ -11,6 +11,7 @@ ROLE = Role(
     normalise=normalise_prime, judge=judge_neighbour("prev_prime"),
     invalid_inputs=((2,), (1,), (0,)),
     families=("exhaustive", "primes", "gaps", "boundaries", "twins", "pseudoprimes",
+              "base-divisors", "first-prime-bases",
               "uniform", "log-uniform",
               "prime-powers", "pseudoprime-neighbours", "mersenne-fermat"),
 )

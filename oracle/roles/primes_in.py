@@ -56,7 +56,7 @@ ROLE = Role(
     normalise=_normalise, judge=_judge, invalid_inputs=((-5, 10),),
     families=("exhaustive", "boundaries", "segments", "twins", "gaps", "uniform", "log-uniform",
               "pseudoprimes", "bound-starts", "sieve-seams",
-              "sieving-prime-intervals"),
+              "sieving-prime-intervals", "squares"),
 )
 
 

@@ -104,8 +104,52 @@ def pseudoprimes(ceiling, profile, rng) -> list[int]:
     found.update(adversarial.LUCAS_PSEUDOPRIMES)
     found.update(adversarial.STRONG_LUCAS_PSEUDOPRIMES)
     found.update(adversarial.FIBONACCI_PSEUDOPRIMES)
+    found.update(adversarial.PERRIN_PSEUDOPRIMES)
+    # the first composite each published deterministic base set lets through beyond its bound
+    found.update(adversarial.LEAST_STRONG_PSEUDOPRIMES_OF_BASE_SETS.values())
+    # ... and the first one a routine trial-dividing below 1000 beforehand lets through
+    found.update(adversarial.STRONG_PSEUDOPRIMES_WITHOUT_SMALL_FACTORS.values())
     found.update(adversarial.constructed_strong_pseudoprimes((2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37), 1))
     return _below(found, ceiling)
+
+
+#: k for which a Miller–Rabin routine to "the first k primes" is built against: a fixed set
+#: of the first 12 ... 50 prime bases, used at every size, is common practice (Maple's isprime
+#: fell to Arnault's number for the primes below 100, i.e. k = 25: F. Arnault 1995).
+FIRST_PRIME_BASE_COUNTS = (12, 13, 16, 20, 25, 32, 40, 50)
+
+
+@functools.lru_cache(maxsize=1)
+def _first_prime_bases_pseudoprimes() -> tuple[int, ...]:
+    """One strong pseudoprime to the first k prime bases for each k of
+    :data:`FIRST_PRIME_BASE_COUNTS`, by Arnault's construction
+    (:func:`oracle.adversarial.constructed_strong_pseudoprimes`): about 200 bits for
+    k = 12, 1000 bits for k = 50 -- above the sampled ceilings, so the climb by bit size
+    asks them (:mod:`oracle.engine._reach_bits`); about 1 s to build, once per process."""
+    from ..exact.primality import next_prime
+
+    bases = [2]
+    while len(bases) < max(FIRST_PRIME_BASE_COUNTS):
+        bases.append(next_prime(bases[-1]))
+    return tuple(adversarial.constructed_strong_pseudoprimes(tuple(bases[:k]), 1)[0]
+                 for k in FIRST_PRIME_BASE_COUNTS)
+
+
+def first_prime_bases(ceiling, profile, rng) -> list[int]:
+    """The pseudoprimes of :func:`_first_prime_bases_pseudoprimes` up to the ceiling (none
+    below 2^200: the climb by bit size asks them, for the primality roles only -- a
+    factoriser needs tens of seconds for three primes of 70 bits and more, so for ``factor``
+    they would measure its speed, not its correctness)."""
+    return _below(_first_prime_bases_pseudoprimes(), ceiling)
+
+
+def base_divisors(ceiling, profile, rng) -> list[int]:
+    """p − 2 ... p + 2 for every prime p dividing a base of a published deterministic
+    Miller–Rabin base set (:data:`oracle.adversarial.DETERMINISTIC_BASE_SETS`, e.g. 407521
+    and 299210837 divide bases of the seven-base set for n < 2^64): at n = p the base is
+    0 (mod n), a^d ≡ 0, and a routine that does not skip such a base calls the prime p
+    composite (common practice: the published sets come with that proviso)."""
+    return _below((p + d for p in adversarial.base_divisor_primes() for d in OFFSETS), ceiling)
 
 
 def carmichael(ceiling, profile, rng) -> list[int]:
@@ -294,13 +338,22 @@ def bound_starts(ceiling, profile, rng) -> list[int]:
 SEAM_EXPONENTS = tuple(range(15, 25))
 
 
+#: Segment sizes that are not powers of two (common practice: round decimal sizes 10^4 ...
+#: 10^7, and multiples of the primorials 30030 = 2·3·5·7·11·13 and 510510, which let a wheel
+#: pattern repeat exactly from one segment to the next).
+DECIMAL_AND_WHEEL_SEGMENTS = (10**4, 10**5, 10**6, 10**7, 30030, 30030 * 16, 510510,
+                              510510 * 4)
+
+
 def sieve_seams(ceiling, profile, rng) -> list[int]:
-    """The primes nearest m·2^k (m = 1, 2, 3; k in :data:`SEAM_EXPONENTS`) with their
+    """The primes nearest m·S (m = 1, 2, 3) for the segment sizes S = 2^k, k in
+    :data:`SEAM_EXPONENTS`, and S in :data:`DECIMAL_AND_WHEEL_SEGMENTS`, with their
     neighbours: a segment ending or starting at a prime drops or repeats it."""
     found = set()
-    for k in SEAM_EXPONENTS:
+    sizes = [2**k for k in SEAM_EXPONENTS] + list(DECIMAL_AND_WHEEL_SEGMENTS)
+    for size in sizes:
         for m in (1, 2, 3):
-            for p in adversarial.primes_around(m * 2**k, 1):
+            for p in adversarial.primes_around(m * size, 1):
                 found.update((p - 1, p, p + 1))
     return _below(found, ceiling)
 
@@ -389,6 +442,61 @@ def _random_prime(bits: int, rng) -> int:
     return next_prime(rng.randrange(2**(bits - 1), 2**bits - 2**(bits - 2)))
 
 
+#: The primes a highly composite number below 2^128 can be built from (common practice).
+_HCN_PRIMES = (2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47, 53, 59, 61, 67, 71, 73,
+               79, 83, 89, 97, 101, 103, 107, 109, 113)
+
+
+@functools.lru_cache(maxsize=4)
+def _highly_composite_up_to(limit: int) -> tuple[int, ...]:
+    """The highly composite numbers n ≤ ``limit`` (OEIS A002182: d(n) > d(m) for every
+    m < n), by enumerating the products 2^a·3^b·5^c··· with non-increasing exponents (OEIS
+    A025487, among which every record of d lies: Ramanujan 1915) and keeping the records."""
+    found: list[tuple[int, int]] = []
+
+    def extend(index: int, n: int, divisors: int, most: int) -> None:
+        found.append((n, divisors))
+        if index == len(_HCN_PRIMES):
+            return
+        m = n
+        for e in range(1, most + 1):
+            m *= _HCN_PRIMES[index]
+            if m > limit:
+                break
+            extend(index + 1, m, divisors * (e + 1), e)
+
+    extend(0, 1, 1, limit.bit_length())
+    records, best = [], 0
+    for n, divisors in sorted(found):
+        if divisors > best:
+            records.append(n)
+            best = divisors
+    return tuple(records)
+
+
+def _primorials_up_to(limit: int) -> list[int]:
+    """2, 2·3, 2·3·5, ... up to ``limit`` (OEIS A002110): the most distinct prime factors."""
+    found, n = [], 1
+    for p in _HCN_PRIMES:
+        n *= p
+        if n > limit:
+            break
+        found.append(n)
+    return found
+
+
+def highly_composite(ceiling, profile, rng) -> list[int]:
+    """The highly composite numbers up to the ceiling (about 180 below 2^66) and the
+    primorials (OEIS A002110; 15 distinct primes below 2^64), with n ± 1: d(n) passes 2^8,
+    2^15, 2^16 (first at 2888071057872000: d = 2^15) and σ(n)/n is at its largest there, and
+    ω(n) is at its largest at the primorials, so a divisor count or sum kept in a narrow
+    word, and an array of the distinct prime factors sized for a few of them, go wrong on
+    them first (common practice)."""
+    top = min(ceiling, 2**128)
+    numbers = set(_highly_composite_up_to(top)) | set(_primorials_up_to(top))
+    return _below((n + d for n in numbers for d in (-1, 0, 1)), ceiling)
+
+
 #: Sizes in bits of the constructed numbers of the sampled family (those up to the ceiling).
 CONSTRUCTED_BITS = (40, 48, 56, 64, 66, 80, 100, 128)
 
@@ -438,7 +546,8 @@ def log_uniform(ceiling, profile, rng) -> list[int]:
 FAMILIES = {
     "exhaustive": exhaustive, "boundaries": boundaries, "primes": primes, "squares": squares,
     "segments": segments, "gaps": gaps, "twins": twins, "pseudoprimes": pseudoprimes,
-    "carmichael": carmichael, "semiprimes": semiprimes, "smooth": smooth,
+    "carmichael": carmichael, "base-divisors": base_divisors,
+    "first-prime-bases": first_prime_bases, "highly-composite": highly_composite, "semiprimes": semiprimes, "smooth": smooth,
     "certified": certified, "prime-indices": prime_indices, "uniform": uniform,
     "log-uniform": log_uniform, "answer-words": answer_words,
     "twin-answer-words": twin_answer_words, "prime-powers": prime_powers,
