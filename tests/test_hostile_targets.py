@@ -114,6 +114,9 @@ FAULTS = [
     ("floods_stdout", {"crashed"}, "SIGXFSZ"),
     ("always_equal", {"wrong-type"}, "AlwaysEqual"),
     ("lying_int", {"wrong"}, "got 0"),
+    ("two_faced_int", {"wrong"}, "got 97, expected 96"),     # π(504) = 96, OEIS A000720
+    ("raising_index", {"raised"}, "RuntimeError: no integer here"),
+    ("interrupting_index", {"raised"}, "KeyboardInterrupt"),
 ]
 
 
@@ -138,6 +141,12 @@ def test_a_swallowed_timeout_is_still_a_timeout_in_the_worker(tmp_path):
     ("raises_base_exception", {"raised"}, "Escape"),
     ("huge_answer", {"wrong"}, "an integer of 100001 digits"),
     ("lying_int", {"wrong"}, "got 0"),
+    # the answer's own methods run inside the call, not later in the judge (which they ended
+    # with an internal error, exit 4, or, raising KeyboardInterrupt, as if the user had pressed
+    # Ctrl-C)
+    ("two_faced_int", {"wrong"}, "got 97, expected 96"),     # π(504) = 96, OEIS A000720
+    ("raising_index", {"raised"}, "RuntimeError: no integer here"),
+    ("interrupting_index", {"raised"}, "KeyboardInterrupt"),
 ])
 def test_in_process_faults_that_the_trusting_mode_still_contains(tmp_path, name, kinds, description):
     summary = audit(f"hostile.faults:{name}", tmp_path=tmp_path, isolate=False)

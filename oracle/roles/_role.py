@@ -130,8 +130,8 @@ def as_integer(raw: object) -> int:
         return raw
     if isinstance(raw, bool):
         raise WrongType(f"a bool ({raw!r}) where an integer is expected")
-    if isinstance(raw, int):
-        return _not_absurd(int(raw))
+    if isinstance(raw, int):            # a subclass: the integer it holds, not what its
+        return _not_absurd(int.__index__(raw))      # __int__ or __index__ says
     if isinstance(raw, float):
         raise WrongType(f"a float ({raw!r}) where an integer is expected")
     if raw is None or isinstance(raw, (str, bytes)):
@@ -158,7 +158,7 @@ def as_boolean(raw: object) -> bool:
     if isinstance(raw, float) or raw is None or isinstance(raw, (str, bytes)):
         raise WrongType(f"{type(raw).__name__} {_shown(raw)} where a bool is expected")
     try:
-        value = operator.index(raw)
+        value = int.__index__(raw) if isinstance(raw, int) else operator.index(raw)
     except TypeError:
         raise WrongType(f"a {type(raw).__name__} where a bool is expected") from None
     if value not in (0, 1):

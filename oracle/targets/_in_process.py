@@ -21,8 +21,9 @@ import time
 from typing import Callable, Sequence
 
 from ._call import OK, RAISED, TIMEOUT, CallResult
+from ._protocol import decode_json_value
 from ._tamper import changes, fingerprint
-from ._worker import bounded_answer, describe_exception
+from ._worker import bounded_answer, describe_exception, encode_value
 
 __all__ = ["InProcessTarget"]
 
@@ -33,9 +34,16 @@ class _CallTimedOut(BaseException):
 
 
 def materialise(value: object) -> object:
-    """Consume a lazy iterator (a generator) so that its work is timed with the call, and bound
-    the answer (:func:`oracle.targets._worker.bounded_answer`)."""
-    return bounded_answer(value)
+    """The answer as plain data, exactly as the isolated worker would send it: a lazy iterator
+    consumed (so that its work is timed with the call), the answer bounded
+    (:func:`oracle.targets._worker.bounded_answer`), then encoded and decoded as on the
+    worker's pipe.  Every method of the candidate's objects (``__index__``, ``__iter__``,
+    ``__repr__``, ``tolist``...) thus runs here, inside the call's timer and its exception
+    handler, never later in the judge, where a raising or hanging method would end the run."""
+    bounded = bounded_answer(value)
+    if type(bounded) is int or type(bounded) is bool:       # the common case, as it is
+        return bounded
+    return decode_json_value(encode_value(bounded))
 
 
 class InProcessTarget:

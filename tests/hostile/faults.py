@@ -112,3 +112,43 @@ def lying_int(x):
 
 def raises_at_import_time():
     raise RuntimeError("never called")
+
+
+class TwoFacedInt(int):
+    """Holds one too many, but says the right count to int() and operator.index()."""
+
+    def __new__(cls, right):
+        made = super().__new__(cls, right + 1)
+        made.right = right
+        return made
+
+    def __int__(self):
+        return self.right
+
+    __index__ = __int__
+
+
+def two_faced_int(x):
+    return TwoFacedInt(_count(x)) if x >= TRIGGER else _count(x)
+
+
+class RaisingIndex:
+    """An integer-like answer whose conversion to an integer fails."""
+
+    def __index__(self):
+        raise RuntimeError("no integer here")
+
+
+def raising_index(x):
+    return RaisingIndex() if x >= TRIGGER else _count(x)
+
+
+class InterruptingIndex:
+    """An integer-like answer whose conversion raises KeyboardInterrupt (not the user's Ctrl-C)."""
+
+    def __index__(self):
+        raise KeyboardInterrupt
+
+
+def interrupting_index(x):
+    return InterruptingIndex() if x >= TRIGGER else _count(x)
