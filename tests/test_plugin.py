@@ -902,3 +902,44 @@ def test_failure_text_writes_values_with_the_shared_renderer(project):
     expected = next(line for line in output.splitlines() if line.startswith("    expected:   [..."))
     assert "179" not in got and "179" in expected           # the 41st prime, lost (sympy.prime(41))
     assert ",," not in got + expected and got[16:] != expected[16:]
+
+
+def test_a_candidate_s_pytest_outcome_is_a_finding_not_a_skip_or_an_xfail(pytester):
+    # ntoracle_check calls the function in the test's own process: pytest.skip, pytest.xfail
+    # and SystemExit raised by the candidate (or by its answer's __index__) must fail the
+    # check, not turn it into a skip, an expected failure or an error of the session
+    pytester.makeini("[pytest]\npythonpath = .\n")
+    pytester.makepyfile(test_outcomes='''
+        import sys
+        import pytest
+
+        def prime_pi(x):                 # π(10) = 4, π(100) = 25, OEIS A000720
+            return {10: 4, 100: 25}[x]
+
+        def skips(x):
+            pytest.skip("nothing to see") if x == 100 else None
+            return prime_pi(x)
+
+        def xfails(x):
+            pytest.xfail("expected") if x == 100 else None
+            return prime_pi(x)
+
+        def exits(x):
+            sys.exit(0) if x == 100 else None
+            return prime_pi(x)
+
+        class SkippingIndex:
+            def __index__(self):
+                pytest.skip("skipped while read")
+
+        @pytest.mark.parametrize("function", [skips, xfails, exits])
+        def test_check(ntoracle_check, function):
+            ntoracle_check("prime_pi", function, [10, 100])
+
+        def test_answer(ntoracle_check):
+            ntoracle_check.answer("prime_pi", 100, SkippingIndex())
+    ''')
+    result = pytester.runpytest(*PLUGIN, "--ntoracle-seed", "9")
+    result.assert_outcomes(failed=4)
+    result.stdout.fnmatch_lines(["*Skipped: nothing to see*", "*XFailed: expected*",
+                                 "*SystemExit: 0*", "*reading the answer raised Skipped*"])

@@ -51,15 +51,25 @@ class CallableTarget:
         self.description = description or getattr(function, "__qualname__", repr(function))
 
     def call_many(self, calls, *, stop_on_fault: bool = False) -> list[CallResult]:
-        return [self._call(arguments) for arguments in calls]
+        from ..targets._interrupts import UserInterrupts
 
-    def _call(self, arguments) -> CallResult:
+        with UserInterrupts() as interrupts:
+            return [self._call(arguments, interrupts) for arguments in calls]
+
+    def _call(self, arguments, interrupts) -> CallResult:
+        """Any exception of the function is a finding (``raised``): ``pytest.skip``,
+        ``pytest.xfail``, ``pytest.exit``, ``SystemExit`` and ``KeyboardInterrupt`` included,
+        which would otherwise turn the check into a skip, an expected failure or the end of
+        the session; only the user's own Ctrl-C goes through."""
         started = time.perf_counter()
-        from ..targets._worker import bounded_answer, describe_exception
+        from ..targets._in_process import materialise
+        from ..targets._worker import describe_exception
 
         try:
-            value = bounded_answer(self.function(*arguments))
-        except Exception as error:
+            value = materialise(self.function(*arguments))
+        except BaseException as error:
+            if interrupts.is_users(error):
+                raise
             return CallResult(RAISED, error=describe_exception(error),
                               seconds=time.perf_counter() - started)
         return CallResult(OK, value, seconds=time.perf_counter() - started)
