@@ -79,7 +79,9 @@ class _Repr(reprlib.Repr):
     def repr_instance(self, x, level):
         try:
             text = repr(x)
-        except Exception:                           # a hostile __repr__ raises: say what it is
+        except KeyboardInterrupt:
+            raise                                   # the user's Ctrl-C during a slow repr
+        except BaseException:                       # a hostile __repr__ raises: say what it is
             return f"<{type(x).__name__} object>"
         return text if len(text) <= self.maxother else text[:self.maxother]
 
@@ -92,14 +94,17 @@ def bounded_text(value: object, limit: int = TEXT_LIMIT) -> str:
     if isinstance(value, str):
         text = value
     elif type(value) is int or (isinstance(value, int) and not isinstance(value, bool)):
+        value = int.__index__(value)        # a subclass: the integer it holds, not its methods'
         if integer_digits(value) > INTEGER_DIGITS:
             return describe_integer(value)
-        text = str(int(value))
+        text = str(value)
         return text if len(text) <= limit else f"{text[:limit]}... ({len(text.lstrip('-'))} digits)"
     else:
         try:
             text = _Repr(limit).repr(value)         # reprlib marks what it leaves out with ...
-        except Exception:
+        except KeyboardInterrupt:
+            raise
+        except BaseException:
             text = f"<{type(value).__name__} object>"
         return text if len(text) <= limit else text[:limit] + "..."
     if len(text) > limit:
@@ -122,11 +127,12 @@ def _bounded(value: object, budget: list, depth: int) -> object:
         budget[0] -= 5
         return value
     if isinstance(value, int):
+        value = int.__index__(value)        # a subclass: the integer it holds
         if integer_digits(value) > INTEGER_DIGITS:
             text = describe_integer(value)
             budget[0] -= len(text) + 2
             return text
-        number = int(value)
+        number = value
         budget[0] -= integer_digits(number) + 2
         return number
     if isinstance(value, str):
