@@ -130,6 +130,23 @@ def test_a_fault_of_an_isolated_candidate_is_a_finding_and_the_run_goes_on(tmp_p
     assert summary["passed_checks"] > 100        # the points below 500 were still judged
 
 
+def test_a_worker_that_exits_leaving_a_process_holding_its_pipe_crashed_and_the_process_ends(
+        tmp_path, monkeypatch):
+    # the escaped process keeps the answer pipe open, so its end is never seen: the worker's
+    # own exit must be noticed (not a "hung" after the timeout) and the escaped process killed
+    pid_file = tmp_path / "escaped.pid"
+    monkeypatch.setenv("HOSTILE_PID_FILE", str(pid_file))
+    summary = audit("hostile.faults:escapes_and_exits", tmp_path=tmp_path, timeout=5.0)
+    assert statuses(summary) == {"crashed"}
+    assert "exited with status 0" in details(summary)
+    assert "outside its process group were still running and were killed" in details(summary)
+    escaped = int(pid_file.read_text())
+    deadline = time.monotonic() + 10
+    while _alive(escaped) and time.monotonic() < deadline:
+        time.sleep(0.05)
+    assert not _alive(escaped), "the escaped process outlived the worker"
+
+
 def test_a_swallowed_timeout_is_still_a_timeout_in_the_worker(tmp_path):
     summary = audit("hostile.faults:swallows_the_timeout", tmp_path=tmp_path, timeout=0.5)
     assert statuses(summary) <= {"too-slow", "hung"} and summary["failures"]

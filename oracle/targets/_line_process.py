@@ -41,6 +41,7 @@ from typing import Callable, Sequence
 
 from .._errors import InvalidInputError
 from ._call import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT, CallResult
+from ._leftovers import end_leftovers, identities
 
 __all__ = ["LineProcess", "WINDOW", "MAX_LINE", "MAX_OUTPUT"]
 
@@ -54,6 +55,7 @@ _STARTUP_GRACE = 3.0      # seconds a fresh process may take for its first answe
 _IMPORT_GRACE = 60.0      # seconds the worker may take to import the candidate
 _EXIT_GRACE = 2.0         # seconds a child that closed its output may take to exit
 _SETTLE = 0.005           # seconds to wait for a surplus line when asking one at a time
+_POLL = 0.05              # seconds between looks at whether a silent child has exited
 _WORKER = str(Path(__file__).with_name("_worker.py"))
 
 #: The launcher of an executable: set the limits, then become the candidate (stdlib only).
@@ -170,6 +172,7 @@ class LineProcess:
         process, self.process = self.process, None
         if process is None:
             return ""
+        held = identities([self._write_fd, self._read_fd, self._output.fileno()])
         for fd in (self._write_fd, self._read_fd):
             if fd >= 0 and self.worker_spec is not None:
                 try:
@@ -190,13 +193,16 @@ class LineProcess:
             except (ProcessLookupError, PermissionError):
                 process.kill()
         process.wait()
+        left = end_leftovers(held, group=process.pid)
         for stream in (process.stdin, process.stdout):
             if stream is not None:
                 try:
                     stream.close()
                 except OSError:
                     pass
-        return self._ending(process.returncode, killed_here) + self._stderr_tail()
+        note = (f"; {len(left)} process(es) it had started outside its process group were "
+                "still running and were killed" if left else "")
+        return self._ending(process.returncode, killed_here) + note + self._stderr_tail()
 
     def _ending(self, code: int, killed_here: bool) -> str:
         if killed_here:
@@ -403,11 +409,17 @@ class LineProcess:
             if remaining <= 0:
                 return "timeout"
             try:
-                ready, _, _ = select.select([fd], [], [], remaining)
+                ready, _, _ = select.select([fd], [], [], min(remaining, _POLL))
+                if not ready and self.process is not None and self.process.poll() is not None:
+                    # the child has exited, but a process it started holds the pipe open:
+                    # what the child wrote before it exited is there now, nothing more will be
+                    ready, _, _ = select.select([fd], [], [], 0)
+                    if not ready:
+                        return "eof"
             except (OSError, ValueError):
                 return "eof"
             if not ready:
-                return "timeout"
+                continue            # the deadline is checked above
             chunk = os.read(fd, 1 << 20)
             if not chunk:
                 return "eof"

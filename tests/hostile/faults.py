@@ -152,3 +152,19 @@ class InterruptingIndex:
 
 def interrupting_index(x):
     return InterruptingIndex() if x >= TRIGGER else _count(x)
+
+
+def escapes_and_exits(x):
+    """Starts a process in a session of its own (out of the worker's process group) that holds
+    every inherited descriptor, the answer pipe included, writes its id to the file named by
+    HOSTILE_PID_FILE, then exits with status 0 itself."""
+    if x >= TRIGGER:
+        if os.fork() == 0:
+            os.setsid()
+            with open(os.environ["HOSTILE_PID_FILE"], "w") as file:
+                file.write(str(os.getpid()))
+            time.sleep(600)
+            os._exit(0)
+        time.sleep(0.2)         # the pid file is written
+        os._exit(0)
+    return _count(x)
