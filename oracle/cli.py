@@ -463,9 +463,15 @@ def _audit(arguments) -> int:
     from . import report
 
     interrupted = False
+    kept: list[dict] = []       # the records as written: the report is drawn from these, never
+                                # from the results file, which the candidate can reach and edit
     try:
         with report.Progress(description=f"{role} checks", quiet=arguments.quiet) as progress:
-            options.on_record = progress.observe
+            def observe(record: dict) -> None:
+                kept.append(record)
+                progress.observe(record)
+
+            options.on_record = observe
             summary = engine.run_audit(target, options, kind=kind)
     except engine.AuditInterrupted as stop:
         summary, interrupted = stop.summary, True
@@ -477,7 +483,7 @@ def _audit(arguments) -> int:
     print(f"results: {options.stream}")
     _write_json(arguments.json_file, summary)
     if arguments.report:
-        _write_report(arguments.report, summary, options.stream, " ".join(sys.argv[1:]))
+        _write_report(arguments.report, summary, kept, " ".join(sys.argv[1:]))
     if interrupted:
         print("ntoracle: interrupted; the findings so far are saved", file=sys.stderr)
         return EXIT_INTERRUPTED
@@ -680,12 +686,14 @@ def _write_json(path, data) -> None:
             json.dump(data, handle, indent=1)
 
 
-def _write_report(directory: str, summary: dict, stream: str | None, command: str) -> None:
-    """summary.json, report.txt and, from the run's records, the self-contained report.html."""
+def _write_report(directory: str, summary: dict, records: list[dict], command: str) -> None:
+    """summary.json, report.txt and, from the run's records (as the harness wrote them, kept in
+    memory: the results file on disk is within reach of the candidate, which runs as the same
+    user), the self-contained report.html."""
     import contextlib
     import io
 
-    from . import engine, report
+    from . import report
 
     os.makedirs(directory, exist_ok=True)
     report.write_json(summary, os.path.join(directory, "summary.json"))
@@ -694,10 +702,10 @@ def _write_report(directory: str, summary: dict, stream: str | None, command: st
         _print_summary(summary)
     with open(os.path.join(directory, "report.txt"), "w", encoding="utf-8") as handle:
         handle.write(text.getvalue())
-    if stream and os.path.exists(stream):
+    if records:
         page = os.path.join(directory, "report.html")
-        report.write_html([(summary, engine.read_records(stream))], page,
-                          command=f"ntoracle {command}")
+        as_read = [json.loads(json.dumps(record)) for record in records]     # as a file gives them
+        report.write_html([(summary, as_read)], page, command=f"ntoracle {command}")
         print(f"report: {page}")
 
 

@@ -209,6 +209,18 @@ def test_the_exit_code_is_the_harness_s_when_the_candidate_exits(tmp_path):
     assert "FAILED" in result.stdout
 
 
+def test_the_html_report_is_drawn_from_the_records_written_not_from_the_file_the_candidate_edits(
+        tmp_path):
+    result = ntoracle("audit", "hostile.faults:doctors_its_results_file", "--role", "prime_pi",
+                      "--profile", "quick", "--seed", "7", "--max", str(SMALL), "--report", "rep",
+                      cwd=tmp_path)
+    assert result.returncode == 0, result.stdout[-2000:] + result.stderr[-2000:]
+    (stream,) = (tmp_path / ".ntoracle" / "runs").glob("*.jsonl")
+    assert '"seed": 8,' in stream.read_text()          # the candidate did edit the file
+    page = (tmp_path / "rep" / "report.html").read_text()
+    assert "--seed 7" in page and "--seed 8" not in page
+
+
 # -- executables ----------------------------------------------------------------------------- #
 
 @pytest.fixture

@@ -168,3 +168,17 @@ def escapes_and_exits(x):
         time.sleep(0.2)         # the pid file is written
         os._exit(0)
     return _count(x)
+
+
+def doctors_its_results_file(x):
+    """Correct, but rewrites, in place, the harness's results files in the working folder as
+    they are written (it runs as the same user): the start record's seed 7 becomes 8."""
+    if x >= TRIGGER:
+        import glob
+
+        for path in glob.glob(os.path.join(".ntoracle", "runs", "*.jsonl")):
+            with open(path, "r+b") as file:
+                data = file.read()
+                file.seek(0)
+                file.write(data.replace(b'"seed": 7,', b'"seed": 8,'))
+    return _count(x)
