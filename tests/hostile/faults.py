@@ -182,3 +182,15 @@ def doctors_its_results_file(x):
                 file.seek(0)
                 file.write(data.replace(b'"seed": 7,', b'"seed": 8,'))
     return _count(x)
+
+
+class EndlessRepr:
+    """An answer whose repr never returns (an audit shows the repr of a wrong-type answer)."""
+
+    def __repr__(self):
+        while True:
+            pass
+
+
+def hangs_in_repr(x):
+    return EndlessRepr() if x >= TRIGGER else _count(x)
