@@ -943,3 +943,43 @@ def test_a_candidate_s_pytest_outcome_is_a_finding_not_a_skip_or_an_xfail(pytest
     result.assert_outcomes(failed=4)
     result.stdout.fnmatch_lines(["*Skipped: nothing to see*", "*XFailed: expected*",
                                  "*SystemExit: 0*", "*reading the answer raised Skipped*"])
+
+
+DOCTORING_PRIME_PI = '''
+import glob
+
+import sympy
+
+
+def prime_pi(n):
+    """Wrong at 1000; at 2000 right, but first rewrites the records files of the items before it
+    (it runs as the same user as pytest) so that the wrong answer reads as a pass."""
+    if n == 2000:
+        for path in glob.glob("out/records/*.jsonl"):
+            with open(path, "r+b") as handle:
+                data = handle.read()
+                handle.seek(0)
+                handle.write(data.replace(b'"status": "wrong"', b'"status":  "pass"'))
+    return int(sympy.primepi(n)) + (n == 1000)
+'''
+
+
+def test_a_records_file_changed_after_its_item_wrote_it_is_left_out_of_the_report(project):
+    project.makepyfile(doctor=DOCTORING_PRIME_PI)
+    project.makefile(".ntoracle.yaml", doctored='''
+        role: prime_pi
+        target: doctor:prime_pi
+        cases:
+          - name: wrong
+            values: [1000]
+          - name: doctors
+            values: [2000]
+    ''')
+    result = project.runpytest(*PLUGIN, "--ntoracle-seed", "4", "--ntoracle-report", "out",
+                               "-p", "no:randomly")
+    result.assert_outcomes(passed=1, failed=1)
+    (edited,) = [path for path in (project.path / "out" / "records").glob("*.jsonl")
+                 if '"status":  "pass"' in path.read_text()]             # it did edit the file
+    page = (project.path / "out" / "report.html").read_text(encoding="utf-8")
+    assert '<h2>prime_pi: <span class="failed">failed</span></h2>' in page
+    assert "was changed after the item wrote it" in page

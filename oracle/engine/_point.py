@@ -81,7 +81,7 @@ def audit_invalid_inputs(target, options, points: list[tuple[int, ...]]) -> dict
     chosen = sampling.profile(options.profile)
     if options.timeout is None:
         options = dataclasses.replace(options, timeout=chosen.timeout)
-    records = RecordStream(options.stream)
+    records = RecordStream(options.stream, on_record=options.on_record)
     run = _audit._Run(target, options, records)
     try:
         records.write({"type": "start", "target": target.description, "role": options.role,

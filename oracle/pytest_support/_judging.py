@@ -22,21 +22,26 @@ __all__ = ["judge_points", "judge_invalid_inputs", "CallableTarget"]
 
 def judge_points(target, *, role: str, profile: str, seed: int, points: list[tuple[int, ...]],
                  timeout: float | None = None, maximum: int | None = None,
-                 conventions: dict | None = None, stream: str | None = None) -> dict:
-    """The audit summary of ``target`` asked at exactly ``points``."""
+                 conventions: dict | None = None, stream: str | None = None,
+                 on_record: Callable[[dict], None] | None = None) -> dict:
+    """The audit summary of ``target`` asked at exactly ``points`` (``on_record`` is called with
+    every record written)."""
     options = AuditOptions(role=role, profile=profile, seed=seed, timeout=timeout, maximum=maximum,
-                           conventions=Conventions(**(conventions or {})), stream=stream)
+                           conventions=Conventions(**(conventions or {})), stream=stream,
+                           on_record=on_record)
     return run_audit(target, options, only=points)
 
 
 def judge_invalid_inputs(target, *, role: str, profile: str, seed: int,
                          points: list[tuple[int, ...]], timeout: float | None = None,
-                         conventions: dict | None = None, stream: str | None = None) -> dict:
+                         conventions: dict | None = None, stream: str | None = None,
+                         on_record: Callable[[dict], None] | None = None) -> dict:
     """The summary of ``target`` asked at inputs outside the role's domain: a hang or a crash
     is a finding; an answer is one only under the convention ``invalid_input: raise``
     (:func:`oracle.engine.audit_invalid_inputs`)."""
     options = AuditOptions(role=role, profile=profile, seed=seed, timeout=timeout,
-                           conventions=Conventions(**(conventions or {})), stream=stream)
+                           conventions=Conventions(**(conventions or {})), stream=stream,
+                           on_record=on_record)
     return audit_invalid_inputs(target, options, points)
 
 
