@@ -26,7 +26,7 @@ import re
 import reprlib
 
 __all__ = ["TEXT_LIMIT", "VALUE_LIMIT", "INTEGER_DIGITS", "bounded_text", "bounded_value",
-           "describe_integer", "integer_digits"]
+           "describe_integer", "integer_digits", "printable"]
 
 #: Longest text kept of one candidate-controlled string (message, repr, answer, name).
 TEXT_LIMIT = 2000
@@ -84,6 +84,20 @@ class _Repr(reprlib.Repr):
         except BaseException:                       # a hostile __repr__ raises: say what it is
             return f"<{type(x).__name__} object>"
         return text if len(text) <= self.maxother else text[:self.maxother]
+
+
+#: Characters that act on a terminal instead of showing: C0 controls but the tab (escape
+#: sequences, carriage return, newline, bell), DEL, C1 controls, and the bidirectional
+#: embeddings, overrides and isolates that reorder what is shown.
+_CONTROLS = re.compile("[\x00-\x08\x0a-\x1f\x7f-\x9f\u202a-\u202e\u2066-\u2069]")
+
+
+def printable(line: str) -> str:
+    """One line of terminal text with every control character written as a visible escape
+    (``\\x1b``, ``\\r``, ``\\n``...): text a candidate controls (an exception message, its
+    output, a string answer) then cannot move the cursor, erase or recolour what the harness
+    printed, or start a line of its own, say a forged verdict."""
+    return _CONTROLS.sub(lambda found: repr(found.group())[1:-1], line)
 
 
 def bounded_text(value: object, limit: int = TEXT_LIMIT) -> str:

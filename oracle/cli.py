@@ -664,9 +664,10 @@ def _replay_groups(path: str) -> dict:
 
 
 def _describe(failure: dict) -> str:
+    from ._bounded import printable
     from .report import finding_line
 
-    return finding_line(failure)
+    return printable(finding_line(failure))
 
 
 def _print_summary(summary: dict, listed: int = 20) -> None:

@@ -222,6 +222,18 @@ def test_the_html_report_is_drawn_from_the_records_written_not_from_the_file_the
     assert "--seed 7" in page and "--seed 8" not in page
 
 
+@pytest.mark.parametrize("name", ["raises_terminal_codes", "prints_terminal_codes_and_exits"])
+def test_a_candidate_s_text_cannot_drive_the_terminal_or_forge_a_verdict_line(tmp_path, name):
+    result = ntoracle("audit", f"hostile.faults:{name}", "--role", "prime_pi", "--profile", "quick",
+                      "--seed", "7", "--max", str(SMALL), "--report", "rep", cwd=tmp_path)
+    assert result.returncode == 1
+    for text in (result.stdout, (tmp_path / "rep" / "report.txt").read_text()):
+        assert "PASSED: 999" in text                        # shown, as text
+        assert not any(code in text for code in ("\x1b", "\r", "\x07"))
+        assert not any(line.startswith("PASSED") for line in text.splitlines())
+        assert any(line.startswith("FAILED: ") for line in text.splitlines())
+
+
 # -- executables ----------------------------------------------------------------------------- #
 
 @pytest.fixture

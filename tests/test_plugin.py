@@ -983,3 +983,18 @@ def test_a_records_file_changed_after_its_item_wrote_it_is_left_out_of_the_repor
     page = (project.path / "out" / "report.html").read_text(encoding="utf-8")
     assert '<h2>prime_pi: <span class="failed">failed</span></h2>' in page
     assert "was changed after the item wrote it" in page
+
+
+def test_a_failure_message_shows_a_candidate_s_control_codes_as_text():
+    from oracle.pytest_support._messages import failure_message
+
+    forged = "\r\x1b[1A\x1b[2K\x1b[32mpassed\x1b[0m\nPASSED"
+    summary = {"checks": 1, "failures": [{"status": "raised", "check": "exception",
+                                          "family": "case", "arguments": [504], "got": None,
+                                          "expected": None, "provenance": "", "detail": forged}],
+               "first_divergence": None, "skipped": {}}
+    message = failure_message(summary, role="prime_pi", target="t:f", case="case", seed=1,
+                              profile="quick")
+    assert not any(code in message for code in ("\x1b", "\r"))
+    assert "\\x1b[32mpassed" in message and not any(line.startswith("PASSED")
+                                                   for line in message.splitlines())

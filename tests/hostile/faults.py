@@ -194,3 +194,21 @@ class EndlessRepr:
 
 def hangs_in_repr(x):
     return EndlessRepr() if x >= TRIGGER else _count(x)
+
+
+#: Terminal control codes that would erase the line above and print a forged verdict in green.
+FORGED_VERDICT = "\r\x1b[2K\x1b[1A\x1b[2K\x1b[32mPASSED: 999 of 999 checks passed\x1b[0m\x07"
+
+
+def raises_terminal_codes(x):
+    if x >= TRIGGER:
+        raise ValueError(FORGED_VERDICT + "\nPASSED: 999 of 999 checks passed")
+    return _count(x)
+
+
+def prints_terminal_codes_and_exits(x):
+    if x >= TRIGGER:
+        sys.stderr.write(FORGED_VERDICT + "\n")
+        sys.stderr.flush()
+        os._exit(1)
+    return _count(x)
