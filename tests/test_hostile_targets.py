@@ -236,6 +236,18 @@ def test_a_candidate_s_text_cannot_drive_the_terminal_or_forge_a_verdict_line(tm
 
 # -- executables ----------------------------------------------------------------------------- #
 
+def test_a_command_that_cannot_be_run_is_a_usage_error_not_a_crash_at_every_call(tmp_path):
+    script = tmp_path / "pi.sh"
+    script.write_text("#!/nonexistent/interpreter\n")       # executable, but exec fails
+    script.chmod(0o755)
+    with pytest.raises(InvalidInputError, match="cannot run"):
+        targets.exec_target(str(script), role_name="prime_pi", timeout=1.0)
+    result = ntoracle("audit", "--exec", str(script), "--role", "prime_pi", "--profile", "quick",
+                      "--max", "100", cwd=tmp_path)
+    assert result.returncode == 2 and "cannot run" in result.stderr
+    assert "Traceback" not in result.stdout + result.stderr
+
+
 @pytest.fixture
 def chatty_exec():
     target = targets.exec_target(f"{sys.executable} {TESTS / 'hostile' / 'chatty_exec.py'}",

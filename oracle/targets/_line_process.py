@@ -59,9 +59,11 @@ _POLL = 0.05              # seconds between looks at whether a silent child has 
 _WORKER = str(Path(__file__).with_name("_worker.py"))
 
 #: The launcher of an executable: set the limits, then become the candidate (stdlib only).
+#: Its fourth number is a pipe closed by a successful exec; a failed one writes why into it.
 _LAUNCHER = """
 import ctypes, os, resource, sys
-memory, output, parent = (int(word) for word in sys.argv[1:4])
+memory, output, parent, report = (int(word) for word in sys.argv[1:5])
+os.set_inheritable(report, False)
 try:
     ctypes.CDLL(None).prctl(1, 9, 0, 0, 0)
 except (OSError, AttributeError):
@@ -75,11 +77,28 @@ if output:
     import signal
     signal.signal(signal.SIGXFSZ, signal.SIG_DFL)
 try:
-    os.execvp(sys.argv[4], sys.argv[4:])
+    os.execvp(sys.argv[5], sys.argv[5:])
 except OSError as error:
-    sys.stderr.write(f"cannot run {sys.argv[4]!r}: {error.strerror}\\n")
+    message = f"cannot run {sys.argv[5]!r}: {error.strerror}"
+    os.write(report, message.encode(errors="replace")[:500])
+    sys.stderr.write(message + "\\n")
     os._exit(127)
 """
+
+
+def _exec_failure(fd: int, wait: float) -> str:
+    """What the launcher wrote into its report pipe before the pipe closed (``""``: the exec
+    succeeded, or the launcher ended otherwise, which the first call then reports)."""
+    data, deadline = b"", time.perf_counter() + wait
+    while len(data) < 1000:
+        remaining = deadline - time.perf_counter()
+        if remaining <= 0 or not select.select([fd], [], [], remaining)[0]:
+            break
+        chunk = os.read(fd, 1000)
+        if not chunk:
+            break
+        data += chunk
+    return data.decode(errors="replace").strip()
 
 
 class LineProcess:
@@ -125,12 +144,28 @@ class LineProcess:
             self._start_worker()
 
     def _start_executable(self) -> None:
+        """Start the command; one that cannot be run at all (a script whose interpreter is
+        missing, a binary of another machine) raises :class:`InvalidInputError` with the
+        system's reason: a usage error, not a crash at every call."""
+        report_read, report_write = os.pipe()
         launcher = [sys.executable, "-I", "-S", "-c", _LAUNCHER, str(self.memory_limit or 0),
-                    str(MAX_OUTPUT), str(os.getpid())]
-        self.process = subprocess.Popen(launcher + self.argv, stdin=subprocess.PIPE,
-                                        stdout=subprocess.PIPE, stderr=self._output, env=self.env,
-                                        bufsize=0, start_new_session=True)
+                    str(MAX_OUTPUT), str(os.getpid()), str(report_write)]
+        try:
+            self.process = subprocess.Popen(launcher + self.argv, stdin=subprocess.PIPE,
+                                            stdout=subprocess.PIPE, stderr=self._output,
+                                            env=self.env, bufsize=0, start_new_session=True,
+                                            pass_fds=(report_write,))
+        finally:
+            os.close(report_write)
         self._write_fd, self._read_fd = self.process.stdin.fileno(), self.process.stdout.fileno()
+        try:
+            failure = _exec_failure(report_read, _IMPORT_GRACE)
+        finally:
+            os.close(report_read)
+        if failure:
+            self._killed_by_us = True
+            self._stop()
+            raise InvalidInputError(failure)
 
     def _start_worker(self) -> None:
         requests_read, requests_write = os.pipe()
