@@ -239,6 +239,7 @@ def main(argv: list[str] | None = None) -> int:
     handler = {"value": _value, "bounds": _bounds, "demo": _demo, "tour": _tour, "audit": _audit,
                "replay": _replay, "store": _store,
                "judge-table": _judge_table}[arguments.command]
+    stdout, sys.stdout = sys.stdout, _OutputMayClose(sys.stdout)
     try:
         return handler(arguments)
     except OutOfReachError as error:
@@ -258,6 +259,44 @@ def main(argv: list[str] | None = None) -> int:
         print(f"ntoracle: internal error: {type(error).__name__}: {error} "
               f"(set NTORACLE_DEBUG=1 for the traceback, and please report it)", file=sys.stderr)
         return EXIT_INTERNAL
+    finally:
+        sys.stdout = stdout
+
+
+class _OutputMayClose:
+    """Standard output whose reader may go away (``ntoracle audit ... | head``): the run goes on
+    to its end, its later output dropped, so that the exit code is still the verdict's -- a
+    broken pipe ended the run with 0 before, a pass that a failed audit had not earned."""
+
+    def __init__(self, stream):
+        self._stream, self._gone = stream, False
+
+    def write(self, text: str) -> int:
+        if not self._gone:
+            try:
+                return self._stream.write(text)
+            except BrokenPipeError:
+                self._close()
+        return len(text)
+
+    def flush(self) -> None:
+        if not self._gone:
+            try:
+                self._stream.flush()
+            except BrokenPipeError:
+                self._close()
+
+    def _close(self) -> None:
+        self._gone = True
+        try:        # the interpreter flushes stdout once more at exit: let that go nowhere
+            devnull = os.open(os.devnull, os.O_WRONLY)
+            os.dup2(devnull, self._stream.fileno())
+            os.close(devnull)
+        except (OSError, ValueError, AttributeError):
+            pass
+
+    def __getattr__(self, name: str):
+        return getattr(self._stream, name)
 
 
 _PROGRESS_STEPS = 1000

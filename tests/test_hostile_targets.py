@@ -234,6 +234,17 @@ def test_a_candidate_s_text_cannot_drive_the_terminal_or_forge_a_verdict_line(tm
         assert any(line.startswith("FAILED: ") for line in text.splitlines())
 
 
+def test_a_closed_output_pipe_does_not_turn_a_failed_audit_into_exit_0(tmp_path):
+    # `ntoracle audit ... | head`: the reader goes away early; the exit code must stay the verdict's
+    process = subprocess.Popen([sys.executable, "-m", "oracle.cli", "audit", "hostile.faults:lying_int",
+                                "--role", "prime_pi", "--profile", "quick", "--seed", "7",
+                                "--max", str(SMALL)], cwd=tmp_path, env=environment(),
+                               stdout=subprocess.PIPE, stderr=subprocess.DEVNULL)
+    process.stdout.close()
+    assert process.wait(timeout=300) == 1
+    assert (tmp_path / ".ntoracle" / "regressions.yaml").exists()      # the findings were saved
+
+
 # -- executables ----------------------------------------------------------------------------- #
 
 def test_a_command_that_cannot_be_run_is_a_usage_error_not_a_crash_at_every_call(tmp_path):
