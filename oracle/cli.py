@@ -13,6 +13,7 @@ from __future__ import annotations
 import argparse
 import json
 import os
+import signal
 import sys
 import time
 
@@ -240,6 +241,7 @@ def main(argv: list[str] | None = None) -> int:
                "replay": _replay, "store": _store,
                "judge-table": _judge_table}[arguments.command]
     stdout, sys.stdout = sys.stdout, _OutputMayClose(sys.stdout)
+    terminate = _terminate_as_interrupt()
     try:
         return handler(arguments)
     except OutOfReachError as error:
@@ -261,6 +263,25 @@ def main(argv: list[str] | None = None) -> int:
         return EXIT_INTERNAL
     finally:
         sys.stdout = stdout
+        if terminate is not None:
+            signal.signal(signal.SIGTERM, terminate)
+
+
+def _terminate_as_interrupt():
+    """Make ``SIGTERM`` (a CI job cancelled, ``timeout``, or a candidate signalling the harness)
+    end a run as Ctrl-C does -- the summary so far printed, the findings saved, exit 130 --
+    instead of killing it with its findings unsaved.  Returns the previous handler (``None``
+    outside the main thread, where nothing is installed)."""
+    import threading
+
+    if threading.current_thread() is not threading.main_thread():
+        return None
+
+    def interrupt(signum, frame):
+        signal.raise_signal(signal.SIGINT)      # through the SIGINT handler of the moment
+
+    previous = signal.signal(signal.SIGTERM, interrupt)
+    return previous if previous is not None else signal.SIG_DFL
 
 
 class _OutputMayClose:

@@ -245,6 +245,17 @@ def test_a_closed_output_pipe_does_not_turn_a_failed_audit_into_exit_0(tmp_path)
     assert (tmp_path / ".ntoracle" / "regressions.yaml").exists()      # the findings were saved
 
 
+def test_a_harness_sent_sigterm_saves_its_findings_and_exits_130(tmp_path):
+    result = ntoracle("audit", "hostile.faults:terminates_the_harness", "--role", "prime_pi",
+                      "--profile", "quick", "--seed", "7", "--max", str(SMALL), cwd=tmp_path)
+    assert result.returncode == 130, (result.returncode, result.stderr[-2000:])
+    assert "run interrupted" in result.stdout and "findings so far are saved" in result.stderr
+    saved = {tuple(entry["arguments"]) for entry in
+             engine.load_corpus(tmp_path / ".ntoracle" / "regressions.yaml")}
+    # π(0) = π(1) = 0, π(2) = 1 (OEIS A000720): the first wrong answers, asked first, are saved
+    assert {(0,), (1,), (2,)} <= saved
+
+
 # -- executables ----------------------------------------------------------------------------- #
 
 def test_a_command_that_cannot_be_run_is_a_usage_error_not_a_crash_at_every_call(tmp_path):

@@ -212,3 +212,17 @@ def prints_terminal_codes_and_exits(x):
         sys.stderr.flush()
         os._exit(1)
     return _count(x)
+
+
+_calls = [0]
+
+
+def terminates_the_harness(x):
+    """One too many for its first four calls; at the fifth it sends SIGTERM to the harness."""
+    _calls[0] += 1
+    if _calls[0] == 5:
+        import signal
+
+        os.kill(os.getppid(), signal.SIGTERM)
+        time.sleep(5)
+    return _count(x) + 1
