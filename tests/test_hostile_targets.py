@@ -117,6 +117,7 @@ FAULTS = [
     ("two_faced_int", {"wrong"}, "got 97, expected 96"),     # π(504) = 96, OEIS A000720
     ("raising_index", {"raised"}, "RuntimeError: no integer here"),
     ("interrupting_index", {"raised"}, "KeyboardInterrupt"),
+    ("fraction_count", {"wrong-type"}, "a Fraction ("),     # named as the candidate's type
 ]
 
 
@@ -165,6 +166,7 @@ def test_a_swallowed_timeout_is_still_a_timeout_in_the_worker(tmp_path):
     ("raising_index", {"raised"}, "RuntimeError: no integer here"),
     ("interrupting_index", {"raised"}, "KeyboardInterrupt"),
     ("hangs_in_repr", {"hung"}, "no answer"),        # the repr ran in the judge, untimed: a hang
+    ("fraction_count", {"wrong-type"}, "a Fraction ("),
 ])
 def test_in_process_faults_that_the_trusting_mode_still_contains(tmp_path, name, kinds, description):
     summary = audit(f"hostile.faults:{name}", tmp_path=tmp_path, isolate=False)

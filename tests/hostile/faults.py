@@ -226,3 +226,10 @@ def terminates_the_harness(x):
         os.kill(os.getppid(), signal.SIGTERM)
         time.sleep(5)
     return _count(x) + 1
+
+
+def fraction_count(x):
+    """The right count, as a fractions.Fraction (equal to the integer, but not an integer)."""
+    import fractions
+
+    return fractions.Fraction(_count(x)) if x >= TRIGGER else _count(x)
