@@ -26,7 +26,7 @@ import re
 import reprlib
 
 __all__ = ["TEXT_LIMIT", "VALUE_LIMIT", "INTEGER_DIGITS", "bounded_text", "bounded_value",
-           "describe_integer", "integer_digits"]
+           "describe_integer", "integer_digits", "printable"]
 
 #: Longest text kept of one candidate-controlled string (message, repr, answer, name).
 TEXT_LIMIT = 2000
@@ -79,9 +79,25 @@ class _Repr(reprlib.Repr):
     def repr_instance(self, x, level):
         try:
             text = repr(x)
-        except Exception:                           # a hostile __repr__ raises: say what it is
+        except KeyboardInterrupt:
+            raise                                   # the user's Ctrl-C during a slow repr
+        except BaseException:                       # a hostile __repr__ raises: say what it is
             return f"<{type(x).__name__} object>"
         return text if len(text) <= self.maxother else text[:self.maxother]
+
+
+#: Characters that act on a terminal instead of showing: C0 controls but the tab (escape
+#: sequences, carriage return, newline, bell), DEL, C1 controls, and the bidirectional
+#: embeddings, overrides and isolates that reorder what is shown.
+_CONTROLS = re.compile("[\x00-\x08\x0a-\x1f\x7f-\x9f\u202a-\u202e\u2066-\u2069]")
+
+
+def printable(line: str) -> str:
+    """One line of terminal text with every control character written as a visible escape
+    (``\\x1b``, ``\\r``, ``\\n``...): text a candidate controls (an exception message, its
+    output, a string answer) then cannot move the cursor, erase or recolour what the harness
+    printed, or start a line of its own, say a forged verdict."""
+    return _CONTROLS.sub(lambda found: repr(found.group())[1:-1], line)
 
 
 def bounded_text(value: object, limit: int = TEXT_LIMIT) -> str:
@@ -92,14 +108,17 @@ def bounded_text(value: object, limit: int = TEXT_LIMIT) -> str:
     if isinstance(value, str):
         text = value
     elif type(value) is int or (isinstance(value, int) and not isinstance(value, bool)):
+        value = int.__index__(value)        # a subclass: the integer it holds, not its methods'
         if integer_digits(value) > INTEGER_DIGITS:
             return describe_integer(value)
-        text = str(int(value))
+        text = str(value)
         return text if len(text) <= limit else f"{text[:limit]}... ({len(text.lstrip('-'))} digits)"
     else:
         try:
             text = _Repr(limit).repr(value)         # reprlib marks what it leaves out with ...
-        except Exception:
+        except KeyboardInterrupt:
+            raise
+        except BaseException:
             text = f"<{type(value).__name__} object>"
         return text if len(text) <= limit else text[:limit] + "..."
     if len(text) > limit:
@@ -122,11 +141,12 @@ def _bounded(value: object, budget: list, depth: int) -> object:
         budget[0] -= 5
         return value
     if isinstance(value, int):
+        value = int.__index__(value)        # a subclass: the integer it holds
         if integer_digits(value) > INTEGER_DIGITS:
             text = describe_integer(value)
             budget[0] -= len(text) + 2
             return text
-        number = int(value)
+        number = value
         budget[0] -= integer_digits(number) + 2
         return number
     if isinstance(value, str):

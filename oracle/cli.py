@@ -13,6 +13,7 @@ from __future__ import annotations
 import argparse
 import json
 import os
+import signal
 import sys
 import time
 
@@ -239,6 +240,8 @@ def main(argv: list[str] | None = None) -> int:
     handler = {"value": _value, "bounds": _bounds, "demo": _demo, "tour": _tour, "audit": _audit,
                "replay": _replay, "store": _store,
                "judge-table": _judge_table}[arguments.command]
+    stdout, sys.stdout = sys.stdout, _OutputMayClose(sys.stdout)
+    terminate = _terminate_as_interrupt()
     try:
         return handler(arguments)
     except OutOfReachError as error:
@@ -258,6 +261,63 @@ def main(argv: list[str] | None = None) -> int:
         print(f"ntoracle: internal error: {type(error).__name__}: {error} "
               f"(set NTORACLE_DEBUG=1 for the traceback, and please report it)", file=sys.stderr)
         return EXIT_INTERNAL
+    finally:
+        sys.stdout = stdout
+        if terminate is not None:
+            signal.signal(signal.SIGTERM, terminate)
+
+
+def _terminate_as_interrupt():
+    """Make ``SIGTERM`` (a CI job cancelled, ``timeout``, or a candidate signalling the harness)
+    end a run as Ctrl-C does -- the summary so far printed, the findings saved, exit 130 --
+    instead of killing it with its findings unsaved.  Returns the previous handler (``None``
+    outside the main thread, where nothing is installed)."""
+    import threading
+
+    if threading.current_thread() is not threading.main_thread():
+        return None
+
+    def interrupt(signum, frame):
+        signal.raise_signal(signal.SIGINT)      # through the SIGINT handler of the moment
+
+    previous = signal.signal(signal.SIGTERM, interrupt)
+    return previous if previous is not None else signal.SIG_DFL
+
+
+class _OutputMayClose:
+    """Standard output whose reader may go away (``ntoracle audit ... | head``): the run goes on
+    to its end, its later output dropped, so that the exit code is still the verdict's -- a
+    broken pipe ended the run with 0 before, a pass that a failed audit had not earned."""
+
+    def __init__(self, stream):
+        self._stream, self._gone = stream, False
+
+    def write(self, text: str) -> int:
+        if not self._gone:
+            try:
+                return self._stream.write(text)
+            except BrokenPipeError:
+                self._close()
+        return len(text)
+
+    def flush(self) -> None:
+        if not self._gone:
+            try:
+                self._stream.flush()
+            except BrokenPipeError:
+                self._close()
+
+    def _close(self) -> None:
+        self._gone = True
+        try:        # the interpreter flushes stdout once more at exit: let that go nowhere
+            devnull = os.open(os.devnull, os.O_WRONLY)
+            os.dup2(devnull, self._stream.fileno())
+            os.close(devnull)
+        except (OSError, ValueError, AttributeError):
+            pass
+
+    def __getattr__(self, name: str):
+        return getattr(self._stream, name)
 
 
 _PROGRESS_STEPS = 1000
@@ -463,9 +523,15 @@ def _audit(arguments) -> int:
     from . import report
 
     interrupted = False
+    kept: list[dict] = []       # the records as written: the report is drawn from these, never
+                                # from the results file, which the candidate can reach and edit
     try:
         with report.Progress(description=f"{role} checks", quiet=arguments.quiet) as progress:
-            options.on_record = progress.observe
+            def observe(record: dict) -> None:
+                kept.append(record)
+                progress.observe(record)
+
+            options.on_record = observe
             summary = engine.run_audit(target, options, kind=kind)
     except engine.AuditInterrupted as stop:
         summary, interrupted = stop.summary, True
@@ -477,7 +543,7 @@ def _audit(arguments) -> int:
     print(f"results: {options.stream}")
     _write_json(arguments.json_file, summary)
     if arguments.report:
-        _write_report(arguments.report, summary, options.stream, " ".join(sys.argv[1:]))
+        _write_report(arguments.report, summary, kept, " ".join(sys.argv[1:]))
     if interrupted:
         print("ntoracle: interrupted; the findings so far are saved", file=sys.stderr)
         return EXIT_INTERRUPTED
@@ -658,9 +724,10 @@ def _replay_groups(path: str) -> dict:
 
 
 def _describe(failure: dict) -> str:
+    from ._bounded import printable
     from .report import finding_line
 
-    return finding_line(failure)
+    return printable(finding_line(failure))
 
 
 def _print_summary(summary: dict, listed: int = 20) -> None:
@@ -680,12 +747,14 @@ def _write_json(path, data) -> None:
             json.dump(data, handle, indent=1)
 
 
-def _write_report(directory: str, summary: dict, stream: str | None, command: str) -> None:
-    """summary.json, report.txt and, from the run's records, the self-contained report.html."""
+def _write_report(directory: str, summary: dict, records: list[dict], command: str) -> None:
+    """summary.json, report.txt and, from the run's records (as the harness wrote them, kept in
+    memory: the results file on disk is within reach of the candidate, which runs as the same
+    user), the self-contained report.html."""
     import contextlib
     import io
 
-    from . import engine, report
+    from . import report
 
     os.makedirs(directory, exist_ok=True)
     report.write_json(summary, os.path.join(directory, "summary.json"))
@@ -694,10 +763,10 @@ def _write_report(directory: str, summary: dict, stream: str | None, command: st
         _print_summary(summary)
     with open(os.path.join(directory, "report.txt"), "w", encoding="utf-8") as handle:
         handle.write(text.getvalue())
-    if stream and os.path.exists(stream):
+    if records:
         page = os.path.join(directory, "report.html")
-        report.write_html([(summary, engine.read_records(stream))], page,
-                          command=f"ntoracle {command}")
+        as_read = [json.loads(json.dumps(record)) for record in records]     # as a file gives them
+        report.write_html([(summary, as_read)], page, command=f"ntoracle {command}")
         print(f"report: {page}")
 
 

@@ -114,6 +114,10 @@ FAULTS = [
     ("floods_stdout", {"crashed"}, "SIGXFSZ"),
     ("always_equal", {"wrong-type"}, "AlwaysEqual"),
     ("lying_int", {"wrong"}, "got 0"),
+    ("two_faced_int", {"wrong"}, "got 97, expected 96"),     # π(504) = 96, OEIS A000720
+    ("raising_index", {"raised"}, "RuntimeError: no integer here"),
+    ("interrupting_index", {"raised"}, "KeyboardInterrupt"),
+    ("fraction_count", {"wrong-type"}, "a Fraction ("),     # named as the candidate's type
 ]
 
 
@@ -127,6 +131,23 @@ def test_a_fault_of_an_isolated_candidate_is_a_finding_and_the_run_goes_on(tmp_p
     assert summary["passed_checks"] > 100        # the points below 500 were still judged
 
 
+def test_a_worker_that_exits_leaving_a_process_holding_its_pipe_crashed_and_the_process_ends(
+        tmp_path, monkeypatch):
+    # the escaped process keeps the answer pipe open, so its end is never seen: the worker's
+    # own exit must be noticed (not a "hung" after the timeout) and the escaped process killed
+    pid_file = tmp_path / "escaped.pid"
+    monkeypatch.setenv("HOSTILE_PID_FILE", str(pid_file))
+    summary = audit("hostile.faults:escapes_and_exits", tmp_path=tmp_path, timeout=5.0)
+    assert statuses(summary) == {"crashed"}
+    assert "exited with status 0" in details(summary)
+    assert "outside its process group were still running and were killed" in details(summary)
+    escaped = int(pid_file.read_text())
+    deadline = time.monotonic() + 10
+    while _alive(escaped) and time.monotonic() < deadline:
+        time.sleep(0.05)
+    assert not _alive(escaped), "the escaped process outlived the worker"
+
+
 def test_a_swallowed_timeout_is_still_a_timeout_in_the_worker(tmp_path):
     summary = audit("hostile.faults:swallows_the_timeout", tmp_path=tmp_path, timeout=0.5)
     assert statuses(summary) <= {"too-slow", "hung"} and summary["failures"]
@@ -138,6 +159,14 @@ def test_a_swallowed_timeout_is_still_a_timeout_in_the_worker(tmp_path):
     ("raises_base_exception", {"raised"}, "Escape"),
     ("huge_answer", {"wrong"}, "an integer of 100001 digits"),
     ("lying_int", {"wrong"}, "got 0"),
+    # the answer's own methods run inside the call, not later in the judge (which they ended
+    # with an internal error, exit 4, or, raising KeyboardInterrupt, as if the user had pressed
+    # Ctrl-C)
+    ("two_faced_int", {"wrong"}, "got 97, expected 96"),     # π(504) = 96, OEIS A000720
+    ("raising_index", {"raised"}, "RuntimeError: no integer here"),
+    ("interrupting_index", {"raised"}, "KeyboardInterrupt"),
+    ("hangs_in_repr", {"hung"}, "no answer"),        # the repr ran in the judge, untimed: a hang
+    ("fraction_count", {"wrong-type"}, "a Fraction ("),
 ])
 def test_in_process_faults_that_the_trusting_mode_still_contains(tmp_path, name, kinds, description):
     summary = audit(f"hostile.faults:{name}", tmp_path=tmp_path, isolate=False)
@@ -183,7 +212,65 @@ def test_the_exit_code_is_the_harness_s_when_the_candidate_exits(tmp_path):
     assert "FAILED" in result.stdout
 
 
+def test_the_html_report_is_drawn_from_the_records_written_not_from_the_file_the_candidate_edits(
+        tmp_path):
+    result = ntoracle("audit", "hostile.faults:doctors_its_results_file", "--role", "prime_pi",
+                      "--profile", "quick", "--seed", "7", "--max", str(SMALL), "--report", "rep",
+                      cwd=tmp_path)
+    assert result.returncode == 0, result.stdout[-2000:] + result.stderr[-2000:]
+    (stream,) = (tmp_path / ".ntoracle" / "runs").glob("*.jsonl")
+    assert '"seed": 8,' in stream.read_text()          # the candidate did edit the file
+    page = (tmp_path / "rep" / "report.html").read_text()
+    assert "--seed 7" in page and "--seed 8" not in page
+
+
+@pytest.mark.parametrize("name", ["raises_terminal_codes", "prints_terminal_codes_and_exits"])
+def test_a_candidate_s_text_cannot_drive_the_terminal_or_forge_a_verdict_line(tmp_path, name):
+    result = ntoracle("audit", f"hostile.faults:{name}", "--role", "prime_pi", "--profile", "quick",
+                      "--seed", "7", "--max", str(SMALL), "--report", "rep", cwd=tmp_path)
+    assert result.returncode == 1
+    for text in (result.stdout, (tmp_path / "rep" / "report.txt").read_text()):
+        assert "PASSED: 999" in text                        # shown, as text
+        assert not any(code in text for code in ("\x1b", "\r", "\x07"))
+        assert not any(line.startswith("PASSED") for line in text.splitlines())
+        assert any(line.startswith("FAILED: ") for line in text.splitlines())
+
+
+def test_a_closed_output_pipe_does_not_turn_a_failed_audit_into_exit_0(tmp_path):
+    # `ntoracle audit ... | head`: the reader goes away early; the exit code must stay the verdict's
+    process = subprocess.Popen([sys.executable, "-m", "oracle.cli", "audit", "hostile.faults:lying_int",
+                                "--role", "prime_pi", "--profile", "quick", "--seed", "7",
+                                "--max", str(SMALL)], cwd=tmp_path, env=environment(),
+                               stdout=subprocess.PIPE, stderr=subprocess.DEVNULL)
+    process.stdout.close()
+    assert process.wait(timeout=300) == 1
+    assert (tmp_path / ".ntoracle" / "regressions.yaml").exists()      # the findings were saved
+
+
+def test_a_harness_sent_sigterm_saves_its_findings_and_exits_130(tmp_path):
+    result = ntoracle("audit", "hostile.faults:terminates_the_harness", "--role", "prime_pi",
+                      "--profile", "quick", "--seed", "7", "--max", str(SMALL), cwd=tmp_path)
+    assert result.returncode == 130, (result.returncode, result.stderr[-2000:])
+    assert "run interrupted" in result.stdout and "findings so far are saved" in result.stderr
+    saved = {tuple(entry["arguments"]) for entry in
+             engine.load_corpus(tmp_path / ".ntoracle" / "regressions.yaml")}
+    # π(0) = π(1) = 0, π(2) = 1 (OEIS A000720): the first wrong answers, asked first, are saved
+    assert {(0,), (1,), (2,)} <= saved
+
+
 # -- executables ----------------------------------------------------------------------------- #
+
+def test_a_command_that_cannot_be_run_is_a_usage_error_not_a_crash_at_every_call(tmp_path):
+    script = tmp_path / "pi.sh"
+    script.write_text("#!/nonexistent/interpreter\n")       # executable, but exec fails
+    script.chmod(0o755)
+    with pytest.raises(InvalidInputError, match="cannot run"):
+        targets.exec_target(str(script), role_name="prime_pi", timeout=1.0)
+    result = ntoracle("audit", "--exec", str(script), "--role", "prime_pi", "--profile", "quick",
+                      "--max", "100", cwd=tmp_path)
+    assert result.returncode == 2 and "cannot run" in result.stderr
+    assert "Traceback" not in result.stdout + result.stderr
+
 
 @pytest.fixture
 def chatty_exec():

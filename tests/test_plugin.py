@@ -928,3 +928,99 @@ def test_a_correct_but_slow_candidate_is_skipped_where_too_slow_never_failed(pro
     assert "failed" not in outcomes, result.stdout.str()[-3000:]
     assert outcomes.get("skipped", 0) >= 1            # 2^61 - 1 is beyond trial division in 0.5 s
     assert "too slow" in result.stdout.str() or "too-slow" in result.stdout.str()
+
+
+def test_a_candidate_s_pytest_outcome_is_a_finding_not_a_skip_or_an_xfail(pytester):
+    # ntoracle_check calls the function in the test's own process: pytest.skip, pytest.xfail
+    # and SystemExit raised by the candidate (or by its answer's __index__) must fail the
+    # check, not turn it into a skip, an expected failure or an error of the session
+    pytester.makeini("[pytest]\npythonpath = .\n")
+    pytester.makepyfile(test_outcomes='''
+        import sys
+        import pytest
+
+        def prime_pi(x):                 # π(10) = 4, π(100) = 25, OEIS A000720
+            return {10: 4, 100: 25}[x]
+
+        def skips(x):
+            pytest.skip("nothing to see") if x == 100 else None
+            return prime_pi(x)
+
+        def xfails(x):
+            pytest.xfail("expected") if x == 100 else None
+            return prime_pi(x)
+
+        def exits(x):
+            sys.exit(0) if x == 100 else None
+            return prime_pi(x)
+
+        class SkippingIndex:
+            def __index__(self):
+                pytest.skip("skipped while read")
+
+        @pytest.mark.parametrize("function", [skips, xfails, exits])
+        def test_check(ntoracle_check, function):
+            ntoracle_check("prime_pi", function, [10, 100])
+
+        def test_answer(ntoracle_check):
+            ntoracle_check.answer("prime_pi", 100, SkippingIndex())
+    ''')
+    result = pytester.runpytest(*PLUGIN, "--ntoracle-seed", "9")
+    result.assert_outcomes(failed=4)
+    result.stdout.fnmatch_lines(["*Skipped: nothing to see*", "*XFailed: expected*",
+                                 "*SystemExit: 0*", "*reading the answer raised Skipped*"])
+
+
+DOCTORING_PRIME_PI = '''
+import glob
+
+import sympy
+
+
+def prime_pi(n):
+    """Wrong at 1000; at 2000 right, but first rewrites the records files of the items before it
+    (it runs as the same user as pytest) so that the wrong answer reads as a pass."""
+    if n == 2000:
+        for path in glob.glob("out/records/*.jsonl"):
+            with open(path, "r+b") as handle:
+                data = handle.read()
+                handle.seek(0)
+                handle.write(data.replace(b'"status": "wrong"', b'"status":  "pass"'))
+    return int(sympy.primepi(n)) + (n == 1000)
+'''
+
+
+def test_a_records_file_changed_after_its_item_wrote_it_is_left_out_of_the_report(project):
+    project.makepyfile(doctor=DOCTORING_PRIME_PI)
+    project.makefile(".ntoracle.yaml", doctored='''
+        role: prime_pi
+        target: doctor:prime_pi
+        cases:
+          - name: wrong
+            values: [1000]
+          - name: doctors
+            values: [2000]
+    ''')
+    result = project.runpytest(*PLUGIN, "--ntoracle-seed", "4", "--ntoracle-report", "out",
+                               "-p", "no:randomly")
+    result.assert_outcomes(passed=1, failed=1)
+    (edited,) = [path for path in (project.path / "out" / "records").glob("*.jsonl")
+                 if '"status":  "pass"' in path.read_text()]             # it did edit the file
+    page = (project.path / "out" / "report.html").read_text(encoding="utf-8")
+    assert '<h2>prime_pi: <span class="failed">failed</span></h2>' in page
+    assert "was changed after the item wrote it" in page
+
+
+def test_a_failure_message_shows_a_candidate_s_control_codes_as_text():
+    from oracle.pytest_support._messages import failure_message
+
+    forged = "\r\x1b[1A\x1b[2K\x1b[32mpassed\x1b[0m\nPASSED"
+    summary = {"checks": 1, "failures": [{"status": "raised", "check": "exception",
+                                          "family": "case", "arguments": [504], "got": None,
+                                          "expected": None, "provenance": "", "detail": forged}],
+               "first_divergence": None, "skipped": {}}
+    message = failure_message(summary, role="prime_pi", target="t:f", case="case", seed=1,
+                              profile="quick")
+    assert not any(code in message for code in ("\x1b", "\r"))
+    assert "\\x1b[32mpassed" in message and not any(line.startswith("PASSED")
+                                                   for line in message.splitlines())

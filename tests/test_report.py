@@ -584,3 +584,22 @@ def test_bounded_text_and_values_never_raise_and_stay_within_their_limits():
     assert bounded_value({2: 3, 5: 1}) == {"2": 3, "5": 1}       # a factorisation's primes as keys
     assert bounded_value((1, 2.5, None, True)) == [1, "2.5", None, True]
     assert jsonable(2**64 + 13) == 2**64 + 13             # exact, as the JSON report promises
+
+
+def test_bounded_text_and_values_read_an_int_subclass_and_survive_any_base_exception():
+    from oracle._bounded import bounded_text, bounded_value
+
+    class TwoFaced(int):            # holds 97; its own methods raise or say otherwise
+        def __int__(self):
+            raise RuntimeError("no int for you")
+
+        def __abs__(self):
+            return 10**5000
+
+    class Skipping:                 # a repr raising a BaseException (as pytest's skip does)
+        def __repr__(self):
+            raise SystemExit(0)
+
+    assert bounded_text(TwoFaced(97)) == "97" and bounded_value(TwoFaced(97)) == 97
+    assert bounded_text(Skipping()) == "<Skipping object>"
+    assert bounded_value([Skipping()]) == ["<Skipping object>"]

@@ -96,3 +96,15 @@ def test_text_protocol_decoding():
     assert decode_text_answer("factor", b"2^2 3") == (False, [(2, 2), (3, 1)], None)
     assert decode_text_answer("prime_pi", b"3.5") == (False, "3.5", None)
     assert decode_text_answer("prime_pi", b"error: x too big")[0] is True
+
+
+def test_text_protocol_leading_zeros_do_not_make_an_integer_huge():
+    # 000...05 is 5 whatever the zeros (int() alone refuses more than 4300 characters); only
+    # significant digits make an answer too long to show
+    from oracle.targets._protocol import decode_text_answer
+
+    zeros = b"0" * 5000
+    assert decode_text_answer("prime_pi", zeros + b"5") == (False, 5, None)
+    assert decode_text_answer("prime_pi", b" -" + zeros + b"5 ") == (False, -5, None)
+    assert decode_text_answer("factor", zeros + b"5^" + zeros + b"2 7") == (False, [(5, 2), (7, 1)], None)
+    assert repr(decode_text_answer("prime_pi", b"1" * 5000)[1]) == "<an integer of 5000 digits>"

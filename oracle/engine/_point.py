@@ -16,7 +16,8 @@ from .._bounded import bounded_text
 from .._errors import OutOfReachError
 from ..roles import AbsurdAnswer, Conventions, Role, Verdict, WrongType
 
-__all__ = ["judge_point", "audit_invalid_inputs", "WRONG_TYPE_CHECK", "SIZE_CHECK"]
+__all__ = ["judge_point", "judge_value", "normalise_answer", "audit_invalid_inputs",
+           "WRONG_TYPE_CHECK", "SIZE_CHECK"]
 
 #: The ``check`` of a verdict on an answer of a type the role does not accept (status wrong-type).
 WRONG_TYPE_CHECK = "type"
@@ -40,8 +41,16 @@ def judge_point(role: str, arguments, got, *, conventions: Conventions | dict | 
     value, refused = normalise_answer(chosen, got, rules)
     if refused is not None:
         return refused
+    return judge_value(chosen, arguments, value, rules, budget)
+
+
+def judge_value(role: Role, arguments: tuple, value: object, conventions: Conventions,
+                budget: float = 10.0) -> Verdict:
+    """The verdict on ``value``, an answer already in the role's normal form (from
+    :func:`normalise_answer`): :func:`judge_point` without the normalisation, for a front end
+    that normalises the answer itself to contain what its methods do."""
     try:
-        return chosen.judge(arguments, value, rules, budget)
+        return role.judge(arguments, value, conventions, budget)
     except OutOfReachError as error:
         return Verdict("exact", False, None, "", bounded_text(str(error)), reach=False)
 
@@ -72,7 +81,7 @@ def audit_invalid_inputs(target, options, points: list[tuple[int, ...]]) -> dict
     chosen = sampling.profile(options.profile)
     if options.timeout is None:
         options = dataclasses.replace(options, timeout=chosen.timeout)
-    records = RecordStream(options.stream)
+    records = RecordStream(options.stream, on_record=options.on_record)
     run = _audit._Run(target, options, records)
     try:
         records.write({"type": "start", "target": target.description, "role": options.role,

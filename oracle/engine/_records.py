@@ -42,6 +42,7 @@ from pathlib import Path
 from .._bounded import bounded_value
 
 __all__ = ["FAILURE_STATUSES", "failure_statuses", "RecordStream", "Records", "read_records",
+           "records_digest",
            "summarise", "jsonable",
            "new_run_path", "point_to_latest", "VERDICTS", "SKIPS_KEEPING_COMPLETE"]
 
@@ -107,6 +108,20 @@ class RecordStream:
         if self._file is not None:
             self._file.close()
             self._file = None
+
+
+def records_digest(records) -> str:
+    """A SHA-256 digest of ``records`` in their JSON form (the same for the records as written,
+    kept in memory, and as read back from their file): what a front end keeps of a run it
+    wrote, to tell later whether the file still holds it.  A results file lies within reach of
+    the candidate, which runs as the same user."""
+    import hashlib
+
+    digest = hashlib.sha256()
+    for record in records:
+        canonical = json.dumps(json.loads(json.dumps(record)), sort_keys=True)
+        digest.update(canonical.encode() + b"\n")
+    return digest.hexdigest()
 
 
 class Records(list):

@@ -59,12 +59,26 @@ class Checker:
         return summary
 
     def answer(self, role: str, arguments, got, *, conventions: dict | None = None) -> dict:
+        """The normalisation is done here, apart from the judgement, because it runs the
+        answer's own methods (``__index__``, ``__iter__``, ``items``...): one that raises fails
+        the test with what it raised -- ``pytest.skip``, ``pytest.xfail`` and ``SystemExit``
+        included, which would otherwise make the check a skip or an expected failure."""
+        from .. import roles
         from .._bounded import bounded_text, bounded_value
-        from ..engine import judge_point
-        from ..engine._point import SIZE_CHECK, WRONG_TYPE_CHECK
+        from ..engine._point import SIZE_CHECK, WRONG_TYPE_CHECK, judge_value, normalise_answer
+        from ..targets._worker import describe_exception
 
         arguments = tuple(arguments) if isinstance(arguments, (tuple, list)) else (arguments,)
-        verdict = judge_point(role, arguments, got, conventions=conventions)
+        chosen, rules = roles.get(role), roles.Conventions(**(conventions or {}))
+        try:
+            value, verdict = normalise_answer(chosen, got, rules)
+        except KeyboardInterrupt:
+            raise                   # loud either way: the session stops, it does not pass
+        except BaseException as error:
+            value, verdict = None, roles.Verdict(WRONG_TYPE_CHECK, False, chosen.signature, "definition",
+                                                 "reading the answer raised " + describe_exception(error))
+        if verdict is None:
+            verdict = judge_value(chosen, arguments, value, rules)
         if not verdict.reach:
             pytest.skip(f"{role}{arguments}: no reference within the oracle's reach"
                         + (f": {verdict.detail}" if verdict.detail else ""))
@@ -76,9 +90,6 @@ class Checker:
             failure.update(status="wrong-type" if verdict.check == WRONG_TYPE_CHECK else "wrong",
                            got=bounded_text(got, 200), expected=None, provenance="")
         else:
-            from .. import roles
-
-            value = roles.get(role).normalise(got, roles.Conventions(**(conventions or {})))
             failure.update(status="wrong", got=bounded_value(value),
                            expected=bounded_value(verdict.expected))
         summary = {"passed": False, "checks": 1, "failures": [failure], "first_divergence": None,

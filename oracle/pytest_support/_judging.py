@@ -22,22 +22,27 @@ __all__ = ["judge_points", "judge_invalid_inputs", "CallableTarget"]
 
 def judge_points(target, *, role: str, profile: str, seed: int, points: list[tuple[int, ...]],
                  timeout: float | None = None, maximum: int | None = None,
-                 conventions: dict | None = None, stream: str | None = None, speed=None) -> dict:
-    """The audit summary of ``target`` asked at exactly ``points``; ``speed``, the target's
-    cost curve from earlier items (:class:`oracle.engine.SpeedModel`), judges its timeouts."""
+                 conventions: dict | None = None, stream: str | None = None,
+                 on_record: Callable[[dict], None] | None = None, speed=None) -> dict:
+    """The audit summary of ``target`` asked at exactly ``points`` (``on_record`` is called with
+    every record written; ``speed``, the target's cost curve from earlier items,
+    :class:`oracle.engine.SpeedModel`, judges its timeouts)."""
     options = AuditOptions(role=role, profile=profile, seed=seed, timeout=timeout, maximum=maximum,
-                           conventions=Conventions(**(conventions or {})), stream=stream)
+                           conventions=Conventions(**(conventions or {})), stream=stream,
+                           on_record=on_record)
     return run_audit(target, options, only=points, speed=speed)
 
 
 def judge_invalid_inputs(target, *, role: str, profile: str, seed: int,
                          points: list[tuple[int, ...]], timeout: float | None = None,
-                         conventions: dict | None = None, stream: str | None = None) -> dict:
+                         conventions: dict | None = None, stream: str | None = None,
+                         on_record: Callable[[dict], None] | None = None) -> dict:
     """The summary of ``target`` asked at inputs outside the role's domain: a hang or a crash
     is a finding; an answer is one only under the convention ``invalid_input: raise``
     (:func:`oracle.engine.audit_invalid_inputs`)."""
     options = AuditOptions(role=role, profile=profile, seed=seed, timeout=timeout,
-                           conventions=Conventions(**(conventions or {})), stream=stream)
+                           conventions=Conventions(**(conventions or {})), stream=stream,
+                           on_record=on_record)
     return audit_invalid_inputs(target, options, points)
 
 
@@ -52,15 +57,25 @@ class CallableTarget:
         self.description = description or getattr(function, "__qualname__", repr(function))
 
     def call_many(self, calls, *, stop_on_fault: bool = False) -> list[CallResult]:
-        return [self._call(arguments) for arguments in calls]
+        from ..targets._interrupts import UserInterrupts
 
-    def _call(self, arguments) -> CallResult:
+        with UserInterrupts() as interrupts:
+            return [self._call(arguments, interrupts) for arguments in calls]
+
+    def _call(self, arguments, interrupts) -> CallResult:
+        """Any exception of the function is a finding (``raised``): ``pytest.skip``,
+        ``pytest.xfail``, ``pytest.exit``, ``SystemExit`` and ``KeyboardInterrupt`` included,
+        which would otherwise turn the check into a skip, an expected failure or the end of
+        the session; only the user's own Ctrl-C goes through."""
         started = time.perf_counter()
-        from ..targets._worker import bounded_answer, describe_exception
+        from ..targets._in_process import materialise
+        from ..targets._worker import describe_exception
 
         try:
-            value = bounded_answer(self.function(*arguments))
-        except Exception as error:
+            value = materialise(self.function(*arguments))
+        except BaseException as error:
+            if interrupts.is_users(error):
+                raise
             return CallResult(RAISED, error=describe_exception(error),
                               seconds=time.perf_counter() - started)
         return CallResult(OK, value, seconds=time.perf_counter() - started)

@@ -53,4 +53,6 @@ def failure_message(summary: dict, *, role: str, target: str, case: str, seed: i
     for reason, count in (summary.get("skipped") or {}).items():
         lines.append(f"not run: {count} point(s), {reason} (not counted as passed)")
     lines.append("reproduce: " + (reproduce or f"pytest --ntoracle-seed {seed} --ntoracle-profile {profile}"))
-    return "\n".join(lines)
+    from .._bounded import printable
+
+    return "\n".join(printable(line) for line in lines)    # no candidate's control codes

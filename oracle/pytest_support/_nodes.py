@@ -245,8 +245,11 @@ class CheckItem(pytest.Item):
         except InvalidInputError as error:
             pytest.fail(f"ntoracle: {setting.source}: {error}", pytrace=False)
         points = self.group.arguments(roles.get(suite.role).arity)
+        stream = self._stream_path()
+        written: list[dict] = []        # to tell later whether the file still holds them
         common = dict(role=suite.role, profile=profile.name, seed=settings.seed, points=points,
-                      timeout=timeout, conventions=chosen.conventions, stream=self._stream_path())
+                      timeout=timeout, conventions=chosen.conventions, stream=stream,
+                      on_record=written.append if stream else None)
         try:
             if self.group.kind == "invalid":
                 summary = judge_invalid_inputs(target, **common)
@@ -258,6 +261,10 @@ class CheckItem(pytest.Item):
         from ._session import item_properties
 
         self.user_properties += [("ntoracle_seed", settings.seed), *item_properties(summary, self.group.case)]
+        if stream:
+            from ..engine._records import records_digest
+
+            self.user_properties.append(("ntoracle_records_sha256", records_digest(written)))
         if summary["failures"]:
             raise CheckFailed(summary)
         reasons = "; ".join(f"{count} point(s): {reason}" for reason, count in summary["skipped"].items())

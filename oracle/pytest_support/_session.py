@@ -14,7 +14,10 @@ process), adds them up per role and target:
 ``DIR/report.html``: the same self-contained page as ``ntoracle audit --report``
 (:func:`oracle.report.write_html`), one section per role and target, its
 summary computed by the engine's :func:`oracle.engine.summarise` from the
-records that the items wrote to ``DIR/records/``.
+records that the items wrote to ``DIR/records/`` -- the files are how records travel
+from pytest-xdist workers, and they are within reach of the candidate (same user), so
+each item reports a digest of what it wrote and a file that no longer matches is left
+out, with a ``tampered`` finding in its place.
 """
 
 from __future__ import annotations
@@ -63,6 +66,7 @@ class RoleTally:
     reach: dict = field(default_factory=dict)             # case -> largest input checked
     nodeids: list = field(default_factory=list)
     cases: dict = field(default_factory=dict)             # nodeid -> case
+    digests: dict = field(default_factory=dict)           # nodeid -> digest of the records written
 
     @property
     def verdict(self) -> str:
@@ -74,6 +78,7 @@ class RoleTally:
         if nodeid not in self.nodeids:
             self.nodeids.append(nodeid)
             self.cases[nodeid] = properties.get("ntoracle_case")
+            self.digests[nodeid] = properties.get("ntoracle_records_sha256")
         self.outcomes[outcome] = self.outcomes.get(outcome, 0) + 1
         self.checks += properties.get("ntoracle_checks", 0)
         self.findings += properties.get("ntoracle_findings", 0)
@@ -178,15 +183,19 @@ class ReportWriter:
         """``(summary, records)`` of one role and target: the records of its items in one run
         (the first start record, every other record, one end record timing them all); the
         checks are filed under their case, which the HTML report's reach table then lists."""
+        from .._bounded import bounded_text
         from ..engine import read_records, summarise
-        from ..engine._records import Records
+        from ..engine._records import Records, records_digest
 
-        records, start, elapsed, ended = Records(), None, 0.0, True
+        records, start, elapsed, ended, changed = Records(), None, 0.0, True, []
         for nodeid in tally.nodeids:
             path = stream_path(self.settings.report_dir, nodeid)
             if not os.path.exists(path):
                 continue
             run = read_records(path)
+            if run.garbled or records_digest(run) != tally.digests.get(nodeid):
+                changed.append(nodeid)      # not what the item wrote: the candidate can reach it
+                continue
             records.garbled += run.garbled
             end = None
             for record in run:
@@ -205,8 +214,18 @@ class ReportWriter:
                 ended = False
             else:
                 elapsed += float(end.get("elapsed") or 0.0)
-        if start is None:
+        if start is None and not changed:
             return None
+        if start is None:
+            start = {"type": "start", "role": tally.role, "target": tally.target,
+                     "seed": self.settings.seed, "profile": self.settings.profile}
+            records.append(start)
+        for nodeid in changed:
+            records.append({"type": "check", "status": "tampered", "check": "harness",
+                            "family": "harness", "arguments": [], "got": None, "expected": None,
+                            "provenance": "", "seconds": 0.0, "detail": bounded_text(
+                                f"the records file of {nodeid} was changed after the item wrote "
+                                "it; its records are left out of this report")})
         if ended:
             records.append({"type": "end", "elapsed": elapsed})
         return summarise(records), list(records)

@@ -8,7 +8,7 @@ through :mod:`oracle.report._values`.
 
 from __future__ import annotations
 
-from .._bounded import bounded_text
+from .._bounded import bounded_text, printable
 from ._values import got_expected, show_value
 
 __all__ = ["summary_lines", "verdict_line", "finding_line", "divergence_line"]
@@ -83,4 +83,4 @@ def summary_lines(summary: dict, listed: int = LISTED_FINDINGS) -> list[str]:
     first = timings["first_finding_seconds"]
     lines.append(f"time: {timings['total_seconds']:.2f} s"
                  + (f"; first finding after {first:.3f} s" if first is not None else ""))
-    return lines
+    return [printable(line) for line in lines]      # for a terminal: no candidate's control codes

@@ -87,6 +87,15 @@ class AbsurdAnswer(WrongType):
     wrong answer, judged without the oracle."""
 
 
+def _type_name(raw: object) -> str:
+    """The name of the type the candidate answered with: an answer of a type that cannot cross
+    the worker's pipe arrives as a stand-in (``oracle.targets._protocol.Opaque``) that carries
+    the name of the candidate's type, which is the one to name."""
+    if type(raw).__name__ == "Opaque" and isinstance(getattr(raw, "type_name", None), str):
+        return bounded_text(raw.type_name, 60)
+    return type(raw).__name__
+
+
 def _shown(raw: object, limit: int = 60) -> str:
     """A short repr of a raw answer for a message, never built whole."""
     if isinstance(raw, (str, bytes)):
@@ -130,8 +139,8 @@ def as_integer(raw: object) -> int:
         return raw
     if isinstance(raw, bool):
         raise WrongType(f"a bool ({raw!r}) where an integer is expected")
-    if isinstance(raw, int):
-        return _not_absurd(int(raw))
+    if isinstance(raw, int):            # a subclass: the integer it holds, not what its
+        return _not_absurd(int.__index__(raw))      # __int__ or __index__ says
     if isinstance(raw, float):
         raise WrongType(f"a float ({raw!r}) where an integer is expected")
     if raw is None or isinstance(raw, (str, bytes)):
@@ -139,7 +148,7 @@ def as_integer(raw: object) -> int:
     try:
         return _not_absurd(operator.index(raw))
     except TypeError:
-        raise WrongType(f"a {type(raw).__name__} ({_shown(raw)}) where an integer is expected") from None
+        raise WrongType(f"a {_type_name(raw)} ({_shown(raw)}) where an integer is expected") from None
 
 
 def _not_absurd(value: int) -> int:
@@ -158,9 +167,9 @@ def as_boolean(raw: object) -> bool:
     if isinstance(raw, float) or raw is None or isinstance(raw, (str, bytes)):
         raise WrongType(f"{type(raw).__name__} {_shown(raw)} where a bool is expected")
     try:
-        value = operator.index(raw)
+        value = int.__index__(raw) if isinstance(raw, int) else operator.index(raw)
     except TypeError:
-        raise WrongType(f"a {type(raw).__name__} where a bool is expected") from None
+        raise WrongType(f"a {_type_name(raw)} where a bool is expected") from None
     if value not in (0, 1):
         raise WrongType(f"the integer {bounded_text(value, 60)} where a bool (or 0/1) is expected")
     return bool(value)
@@ -175,7 +184,7 @@ def as_integer_sequence(raw: object) -> list[int]:
     try:
         return [as_integer(item) for item in items]
     except TypeError:
-        raise WrongType(f"a {type(raw).__name__} that is not iterable") from None
+        raise WrongType(f"a {_type_name(raw)} that is not iterable") from None
 
 
 def exact_verdict(got: object, expected: object, provenance: str, show=repr) -> Verdict:

@@ -88,9 +88,11 @@ def exec_target(command: str, *, role_name: str, timeout: float,
         raise InvalidInputError("--exec: empty command")
     if shutil.which(argv[0]) is None:
         raise InvalidInputError(f"--exec {argv[0][:200]!r}: no such command (or not executable)")
-    return LineProcess(argv, encode=encode_text_request,
-                       decode=functools.partial(decode_text_answer, role_name),
-                       timeout=timeout, memory_limit=memory_limit, description=command)
+    target = LineProcess(argv, encode=encode_text_request,
+                         decode=functools.partial(decode_text_answer, role_name),
+                         timeout=timeout, memory_limit=memory_limit, description=command)
+    target.start()          # a command that cannot be run is a usage error, here
+    return target
 
 
 def _encode_json_request(arguments: tuple[int, ...]) -> bytes:

@@ -21,8 +21,10 @@ import time
 from typing import Callable, Sequence
 
 from ._call import OK, RAISED, TIMEOUT, CallResult
+from ._interrupts import UserInterrupts
+from ._protocol import decode_json_value
 from ._tamper import changes, fingerprint
-from ._worker import bounded_answer, describe_exception
+from ._worker import bounded_answer, describe_exception, encode_value
 
 __all__ = ["InProcessTarget"]
 
@@ -33,9 +35,21 @@ class _CallTimedOut(BaseException):
 
 
 def materialise(value: object) -> object:
-    """Consume a lazy iterator (a generator) so that its work is timed with the call, and bound
-    the answer (:func:`oracle.targets._worker.bounded_answer`)."""
-    return bounded_answer(value)
+    """The answer as plain data, exactly as the isolated worker would send it: a lazy iterator
+    consumed (so that its work is timed with the call), the answer bounded
+    (:func:`oracle.targets._worker.bounded_answer`), then encoded and decoded as on the
+    worker's pipe.  Every method of the candidate's objects (``__index__``, ``__iter__``,
+    ``__repr__``, ``tolist``...) thus runs here, inside the call's timer and its exception
+    handler, never later in the judge, where a raising or hanging method would end the run."""
+    bounded = bounded_answer(value)
+    kind = type(bounded)
+    if kind is int or kind is bool:                         # the common cases, as the pipe
+        return bounded                                      # would give them, without it
+    if (kind is list or kind is tuple) and all(type(item) is int for item in bounded):
+        return list(bounded)
+    if kind is dict and all(type(key) is int and type(item) is int for key, item in bounded.items()):
+        return bounded
+    return decode_json_value(encode_value(bounded))
 
 
 class InProcessTarget:
@@ -55,35 +69,29 @@ class InProcessTarget:
         self.timeout = timeout
         self.description = description
         self._calling = False
-        self._interrupted = False
+        self._interrupts = UserInterrupts()
 
     def _on_alarm(self, signum, frame):
         if self._calling:
             raise _CallTimedOut()
 
-    def _on_interrupt(self, signum, frame):
-        self._interrupted = True
-        raise KeyboardInterrupt
-
     def call_many(self, calls: Sequence[tuple[int, ...]], *, stop_on_fault: bool = False) -> list[CallResult]:
         """The results in order; with ``stop_on_fault`` the list ends at the first timeout."""
         alarm = threading.current_thread() is threading.main_thread()
-        self._interrupted = False
         if alarm:
             previous = signal.signal(signal.SIGALRM, self._on_alarm)
-            previous_interrupt = signal.signal(signal.SIGINT, self._on_interrupt)
         try:
-            results = []
-            for arguments in calls:
-                results.append(self._call(arguments, alarm))
-                if stop_on_fault and results[-1].status == TIMEOUT:
-                    break
-            return results
+            with self._interrupts:
+                results = []
+                for arguments in calls:
+                    results.append(self._call(arguments, alarm))
+                    if stop_on_fault and results[-1].status == TIMEOUT:
+                        break
+                return results
         finally:
             if alarm:
                 signal.setitimer(signal.ITIMER_REAL, 0)
                 signal.signal(signal.SIGALRM, previous)
-                signal.signal(signal.SIGINT, previous_interrupt)
 
     def _call(self, arguments: tuple[int, ...], alarm: bool) -> CallResult:
         function, timeout = self.function, self.timeout
@@ -100,7 +108,7 @@ class InProcessTarget:
             return CallResult(TIMEOUT, error=f"no answer within {timeout:g} s",
                               seconds=time.perf_counter() - started)
         except BaseException as error:
-            if isinstance(error, KeyboardInterrupt) and self._interrupted:
+            if self._interrupts.is_users(error):
                 raise                   # the user's Ctrl-C, not the candidate's exception
             return CallResult(RAISED, error=describe_exception(error),
                               seconds=time.perf_counter() - started)

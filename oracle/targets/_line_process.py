@@ -41,6 +41,7 @@ from typing import Callable, Sequence
 
 from .._errors import InvalidInputError
 from ._call import BAD_OUTPUT, CRASHED, OK, RAISED, TIMEOUT, CallResult
+from ._leftovers import end_leftovers, identities
 
 __all__ = ["LineProcess", "WINDOW", "MAX_LINE", "MAX_OUTPUT"]
 
@@ -54,12 +55,15 @@ _STARTUP_GRACE = 3.0      # seconds a fresh process may take for its first answe
 _IMPORT_GRACE = 60.0      # seconds the worker may take to import the candidate
 _EXIT_GRACE = 2.0         # seconds a child that closed its output may take to exit
 _SETTLE = 0.005           # seconds to wait for a surplus line when asking one at a time
+_POLL = 0.05              # seconds between looks at whether a silent child has exited
 _WORKER = str(Path(__file__).with_name("_worker.py"))
 
 #: The launcher of an executable: set the limits, then become the candidate (stdlib only).
+#: Its fourth number is a pipe closed by a successful exec; a failed one writes why into it.
 _LAUNCHER = """
 import ctypes, os, resource, sys
-memory, output, parent = (int(word) for word in sys.argv[1:4])
+memory, output, parent, report = (int(word) for word in sys.argv[1:5])
+os.set_inheritable(report, False)
 try:
     ctypes.CDLL(None).prctl(1, 9, 0, 0, 0)
 except (OSError, AttributeError):
@@ -73,11 +77,28 @@ if output:
     import signal
     signal.signal(signal.SIGXFSZ, signal.SIG_DFL)
 try:
-    os.execvp(sys.argv[4], sys.argv[4:])
+    os.execvp(sys.argv[5], sys.argv[5:])
 except OSError as error:
-    sys.stderr.write(f"cannot run {sys.argv[4]!r}: {error.strerror}\\n")
+    message = f"cannot run {sys.argv[5]!r}: {error.strerror}"
+    os.write(report, message.encode(errors="replace")[:500])
+    sys.stderr.write(message + "\\n")
     os._exit(127)
 """
+
+
+def _exec_failure(fd: int, wait: float) -> str:
+    """What the launcher wrote into its report pipe before the pipe closed (``""``: the exec
+    succeeded, or the launcher ended otherwise, which the first call then reports)."""
+    data, deadline = b"", time.perf_counter() + wait
+    while len(data) < 1000:
+        remaining = deadline - time.perf_counter()
+        if remaining <= 0 or not select.select([fd], [], [], remaining)[0]:
+            break
+        chunk = os.read(fd, 1000)
+        if not chunk:
+            break
+        data += chunk
+    return data.decode(errors="replace").strip()
 
 
 class LineProcess:
@@ -123,12 +144,28 @@ class LineProcess:
             self._start_worker()
 
     def _start_executable(self) -> None:
+        """Start the command; one that cannot be run at all (a script whose interpreter is
+        missing, a binary of another machine) raises :class:`InvalidInputError` with the
+        system's reason: a usage error, not a crash at every call."""
+        report_read, report_write = os.pipe()
         launcher = [sys.executable, "-I", "-S", "-c", _LAUNCHER, str(self.memory_limit or 0),
-                    str(MAX_OUTPUT), str(os.getpid())]
-        self.process = subprocess.Popen(launcher + self.argv, stdin=subprocess.PIPE,
-                                        stdout=subprocess.PIPE, stderr=self._output, env=self.env,
-                                        bufsize=0, start_new_session=True)
+                    str(MAX_OUTPUT), str(os.getpid()), str(report_write)]
+        try:
+            self.process = subprocess.Popen(launcher + self.argv, stdin=subprocess.PIPE,
+                                            stdout=subprocess.PIPE, stderr=self._output,
+                                            env=self.env, bufsize=0, start_new_session=True,
+                                            pass_fds=(report_write,))
+        finally:
+            os.close(report_write)
         self._write_fd, self._read_fd = self.process.stdin.fileno(), self.process.stdout.fileno()
+        try:
+            failure = _exec_failure(report_read, _IMPORT_GRACE)
+        finally:
+            os.close(report_read)
+        if failure:
+            self._killed_by_us = True
+            self._stop()
+            raise InvalidInputError(failure)
 
     def _start_worker(self) -> None:
         requests_read, requests_write = os.pipe()
@@ -170,6 +207,7 @@ class LineProcess:
         process, self.process = self.process, None
         if process is None:
             return ""
+        held = identities([self._write_fd, self._read_fd, self._output.fileno()])
         for fd in (self._write_fd, self._read_fd):
             if fd >= 0 and self.worker_spec is not None:
                 try:
@@ -190,13 +228,16 @@ class LineProcess:
             except (ProcessLookupError, PermissionError):
                 process.kill()
         process.wait()
+        left = end_leftovers(held, group=process.pid)
         for stream in (process.stdin, process.stdout):
             if stream is not None:
                 try:
                     stream.close()
                 except OSError:
                     pass
-        return self._ending(process.returncode, killed_here) + self._stderr_tail()
+        note = (f"; {len(left)} process(es) it had started outside its process group were "
+                "still running and were killed" if left else "")
+        return self._ending(process.returncode, killed_here) + note + self._stderr_tail()
 
     def _ending(self, code: int, killed_here: bool) -> str:
         if killed_here:
@@ -403,11 +444,17 @@ class LineProcess:
             if remaining <= 0:
                 return "timeout"
             try:
-                ready, _, _ = select.select([fd], [], [], remaining)
+                ready, _, _ = select.select([fd], [], [], min(remaining, _POLL))
+                if not ready and self.process is not None and self.process.poll() is not None:
+                    # the child has exited, but a process it started holds the pipe open:
+                    # what the child wrote before it exited is there now, nothing more will be
+                    ready, _, _ = select.select([fd], [], [], 0)
+                    if not ready:
+                        return "eof"
             except (OSError, ValueError):
                 return "eof"
             if not ready:
-                return "timeout"
+                continue            # the deadline is checked above
             chunk = os.read(fd, 1 << 20)
             if not chunk:
                 return "eof"

@@ -68,10 +68,15 @@ def decode_text_answer(role_name: str, line: bytes) -> tuple[bool, object, None]
 
 
 def _integer(token: bytes) -> int | Oversized:
-    digits = token.strip().lstrip(b"+-")
+    """The integer of a token of ASCII digits with an optional sign.  Leading zeros are dropped
+    first: ``000...05`` is 5 however many zeros come before it (Python's int() would refuse
+    it above 4300 characters, and its size is that of 5)."""
+    token = token.strip()
+    negative = token.startswith(b"-")
+    digits = token.lstrip(b"+-").lstrip(b"0") or b"0"
     if len(digits) > MAX_DIGITS:
-        return Oversized(len(digits.lstrip(b"0")), token.strip().startswith(b"-"))
-    return int(token)
+        return Oversized(len(digits), negative)
+    return -int(digits) if negative else int(digits)
 
 
 class Opaque:

@@ -101,7 +101,8 @@ def bounded_answer(value: object, depth: int = 0) -> object:
         return value if value.bit_length() <= _HUGE_BITS else Oversized.of(value)
     if isinstance(value, bool) or value is None or isinstance(value, (float, str, bytes)):
         return value
-    if isinstance(value, int):
+    if isinstance(value, int):          # a subclass: its own value, whatever its methods say
+        value = true_int(value)
         return Oversized.of(value) if value.bit_length() > _HUGE_BITS else value
     if depth > _MAX_DEPTH:
         return _Described(type(value).__name__, "nested too deeply")
@@ -118,6 +119,14 @@ def bounded_answer(value: object, depth: int = 0) -> object:
         base = next(kind for kind in (list, tuple, set, frozenset) if isinstance(value, kind))
         return base(bounded_answer(item, depth + 1) for item in value)
     return value
+
+
+def true_int(value: int) -> int:
+    """The integer an ``int`` subclass holds, as a plain ``int``.  ``int.__index__`` reads the
+    stored digits; ``int(value)``, ``operator.index``, ``abs`` and ``bit_length`` would call the
+    subclass's own methods, which may say anything (an answer that holds 97 but whose
+    ``__int__`` says 96 is 97 to every comparison and every sum its user makes)."""
+    return int.__index__(value)
 
 
 def contains_oversized(value: object, depth: int = 0) -> bool:
@@ -152,7 +161,7 @@ def encode_value(value: object, depth: int = 0) -> object:
     if isinstance(value, bool) or value is None:
         return value
     if isinstance(value, int):
-        return int(value)
+        return true_int(value)
     if depth > _MAX_DEPTH:
         return {"object": type(value).__name__, "repr": "nested too deeply"}
     if isinstance(value, Oversized):
