@@ -253,9 +253,47 @@ def twin_answer_words(ceiling, profile, rng) -> list[int]:
 
 
 #: The least prime p with p₁ + ... + p ≥ 2^w, for the word sizes w where a sum of primes kept
-#: in a machine word or a double goes wrong (computed with the oracle's sieve; tests compare
-#: with sympy up to w = 32 and with primesieve for w = 53).
-PRIME_SUM_WORDS = {15: 631, 16: 929, 31: 225287, 32: 323381, 53: 595600673}
+#: in a machine word or a double goes wrong (computed with the oracle's sieve, and for w = 63,
+#: 64 with its combinatorial sum near p and its sieve up to p; tests compare with sympy up to
+#: w = 32 and with primesieve for w = 53, 63, 64).  Above the sampled ceilings the climb asks
+#: them (:mod:`oracle.engine._reach`).
+PRIME_SUM_WORDS = {15: 631, 16: 929, 31: 225287, 32: 323381, 53: 595600673,
+                   63: 20706267151, 64: 29505444491}
+#: The least x with Q(x) ≥ 2^w (Q the squarefree count; the x is itself squarefree), where a
+#: squarefree count kept in an int32 or uint32 wraps (computed by bisection on the oracle's
+#: Möbius identity; tests compare with the identity over sympy's μ).
+SQUAREFREE_WORDS = {31: 3532469249, 32: 7064938121}
+#: Word sizes of the intermediate products of :func:`intermediate_words`.
+PRODUCT_WORDS = (63, 64)
+
+
+def _least_at_least(f, bound: int) -> int:
+    """The least x ≥ 1 with f(x) ≥ bound, for a non-decreasing f (by bisection)."""
+    low, high = 1, 1
+    while f(high) < bound:
+        high *= 2
+    while low < high:
+        middle = (low + high) // 2
+        low, high = (low, middle) if f(middle) >= bound else (middle + 1, high)
+    return low
+
+
+def intermediate_words() -> list[int]:
+    """The least x where x·x and x·(x + 1)/2 reach 2⁶³ and 2⁶⁴ (3037000500, 4294967296 and
+    6074001000): a sum up to x that forms x², or the sum 1 + ... + x = x(x + 1)/2 that
+    Legendre- and Lucy-type methods start from, in a signed or unsigned 64-bit word goes
+    wrong from there on, although the answer itself fits the word (common practice)."""
+    found = set()
+    for w in PRODUCT_WORDS:
+        found.add(_least_at_least(lambda x: x * x, 2**w))
+        found.add(_least_at_least(lambda x: x * (x + 1) // 2, 2**w))
+    return sorted(found)
+
+
+def product_words(ceiling, profile, rng) -> list[int]:
+    """x − 1, x, x + 1 for the x of :func:`intermediate_words` (those above the ceiling are
+    the climb's, :mod:`oracle.engine._reach`)."""
+    return _below((x + d for x in intermediate_words() for d in (-1, 0, 1)), ceiling)
 
 
 def sum_words(ceiling, profile, rng) -> list[int]:
@@ -558,6 +596,7 @@ FAMILIES = {
     "constructed": constructed,
 }
 FAMILIES["sum-words"] = sum_words
+FAMILIES["product-words"] = product_words
 FAMILIES["square-steps"] = square_steps
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",
