@@ -469,6 +469,7 @@ SECOND_REFERENCE = {
     "prime_pi_chatty": lambda x: int(primecountpy.prime_pi(x)) if x >= 2 else 0,
     "factor_sympy": reference_factor,
     "prime_sum_sympy": reference_prime_sum,
+    "prime_sum_lucy_exact": reference_prime_sum,
     "prime_pi_mod_sympy": reference_prime_pi_mod,
     "mertens_sympy": reference_mertens,
     "squarefree_count_sympy": reference_squarefree_count,
