@@ -142,6 +142,54 @@ def test_the_oracle_cost_estimate_follows_its_routes():
     assert _reach.oracle_seconds("twin_pi", 3 * 10**18, budget) > budget
 
 
+def test_the_sums_climb_at_round_points_and_word_crossings():
+    """prime_sum climbs from its sampled ceiling at 10^k and 2^k ± 1 and at the primes where
+    its answer passes 2^63 and 2^64 (tests/test_sums.py checks those against Lucy_Hedgehog's
+    method written in the tests), and at 6074001000, the least x with x(x+1)/2 >= 2^64."""
+    import random
+
+    steps = _reach._steps("prime_sum", 2**32 + 2**20, random.Random(1))
+    by_family = {}
+    for _, family, inputs in steps:
+        by_family.setdefault(family, []).append(inputs)
+    assert [10**10 - 1, 10**10, 10**10 + 1] in by_family["climb-tables"]
+    assert [2**40 - 1, 2**40, 2**40 + 1] in by_family["climb-tables"]
+    assert all(x > 2**32 + 2**20 for inputs in by_family["climb-tables"] for x in inputs)
+    words = by_family["climb-answer-words"]
+    assert [20706267150, 20706267151] in words and [29505444490, 29505444491] in words
+    assert [6074000999, 6074001000] in words
+    sizes = [size for size, _, _ in steps]
+    assert sizes == sorted(sizes)
+    squarefree = _reach._steps("squarefree_count", 2**32 + 2**20, random.Random(1))
+    assert [7064938120, 7064938121] in [i for _, f, i in squarefree if f == "climb-answer-words"]
+    above = [inputs for _, _, inputs in _reach._answer_word_steps("prime_sum", 25 * 10**9)]
+    assert [29505444490, 29505444491] in above and [20706267150, 20706267151] not in above
+
+
+def test_the_oracle_cost_estimate_of_the_sums_follows_their_routes():
+    budget = 10.0
+    # the combinatorial sum of the primes: seconds at 10^10, beyond the budget near 2^40
+    assert _reach.oracle_seconds("prime_sum", 10**10, budget) < budget
+    assert _reach.oracle_seconds("prime_sum", 2**40, budget) > budget
+    # Q(x) needs mu up to sqrt(x) only; nothing at or above 2^63
+    assert _reach.oracle_seconds("squarefree_count", 10**14, budget) < budget
+    assert _reach.oracle_seconds("squarefree_count", 2**63, budget) == float("inf")
+    # the Mertens sieve is linear in x: 2^31 is over the budget
+    assert _reach.oracle_seconds("mertens", 2**31, budget) > budget
+    assert _reach.oracle_seconds("quadruplet_pi", 2**64, budget) == float("inf")
+
+
+@pytest.mark.slow
+def test_ci_catches_a_prime_sum_that_wraps_at_2_to_the_63(tmp_path):
+    """A fast Lucy_Hedgehog prime sum in int64 is caught by the climb at the prime where the
+    sum first passes 2^63 - 1 (before the climb, ci passed it)."""
+    summary = audit("zoo.prime_sum_lucy_int64:prime_sum", "prime_sum", tmp_path, profile="ci",
+                    maximum=None, timeout=10.0)
+    assert not summary["passed"]
+    assert summary["first_divergence"]["input"] == [20706267151]
+    assert summary["reach"]["climb-answer-words"]["stopped"] == "after failures"
+
+
 # -- the speed model ----------------------------------------------------------- #
 
 def test_speed_model_fits_the_growth_between_octaves():

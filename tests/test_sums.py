@@ -183,6 +183,48 @@ def test_prime_sum_word_53_is_where_the_sum_first_reaches_two_to_the_53():
     assert int(listed[-1]) == p and below < 2**53 <= below + p
 
 
+@pytest.mark.slow
+@pytest.mark.parametrize("w", [63, 64])
+def test_prime_sum_words_63_and_64_are_where_the_sum_first_reaches_the_word(w):
+    """The climb's answer-word points of prime_sum against Lucy_Hedgehog's method written in
+    the tests (tests/_lucy.py, checked against OEIS A046731) and sympy's primality test."""
+    from _lucy import prime_sum_by_lucy
+
+    p = _families.PRIME_SUM_WORDS[w]
+    previous = sympy.prevprime(p)
+    assert sympy.isprime(p)
+    assert prime_sum_by_lucy(previous) < 2**w <= prime_sum_by_lucy(p)
+    assert prime_sum_by_lucy(p - 1) == prime_sum_by_lucy(previous)
+
+
+def test_squarefree_words_are_where_q_first_reaches_the_word():
+    """Q(x - 1) = 2^w - 1 and Q(x) = 2^w at the points of SQUAREFREE_WORDS, by the identity
+    Q(x) = sum mu(d) * (x // d^2) over sympy's Moebius function (an independent computation)."""
+    from math import isqrt
+
+    mu = [0] + list(sympy.sieve.mobiusrange(1, isqrt(max(_families.SQUAREFREE_WORDS.values())) + 1))
+
+    def count(x):
+        return sum(mu[d] * (x // (d * d)) for d in range(1, isqrt(x) + 1) if mu[d])
+
+    for w, x in _families.SQUAREFREE_WORDS.items():
+        assert (count(x - 1), count(x)) == (2**w - 1, 2**w), w
+
+
+def test_intermediate_words_are_where_the_products_first_reach_the_word():
+    """Brute force around each point: x*x and x*(x+1)/2 reach 2^63 or 2^64 first there."""
+    found = _families.intermediate_words()
+    expected = set()
+    for w in (63, 64):
+        for f in (lambda x: x * x, lambda x: x * (x + 1) // 2):
+            firsts = [x for x in found if f(x - 1) < 2**w <= f(x)]
+            assert len(firsts) == 1, (w, found)
+            expected.add(firsts[0])
+    assert set(found) == expected == {3037000500, 4294967296, 6074001000}
+    assert 3037000499**2 < 2**63 <= 3037000500**2
+    assert 6074000999 * 6074001000 // 2 < 2**64 <= 6074001000 * 6074001001 // 2
+
+
 def test_bad_progression_and_summatory_arguments_are_refused():
     with pytest.raises(InvalidInputError):
         facade.interval_sum("pi", 0, 10)
@@ -231,6 +273,36 @@ def test_prime_pi_mod_role_samples_triples_in_reduced_classes():
     assert all(len(s.arguments) == 3 and gcd(s.arguments[2], s.arguments[1]) == 1 for s in points)
     assert {(q, a) for _, q, a in (s.arguments for s in points)} >= {(1, 0), (4, 5), (65537, 3)}
     assert max(s.arguments[0] for s in points) > 2**32
+
+
+def test_prime_pi_mod_moduli_family_holds_large_moduli_and_classes_read_modulo_q():
+    from math import gcd
+
+    from oracle import sampling
+
+    points = sampling.sample(roles.get("prime_pi_mod"), sampling.profile("ci"), seed=3)
+    moduli = [s.arguments for s in points if s.family == "moduli"]
+    assert all(gcd(a, q) == 1 for _, q, a in moduli)
+    qs = {q for _, q, _ in moduli}
+    assert {2**16, 2**31 - 1, 2**31, 2**32 - 1, 2**32, 2**32 + 1, 2**64 + 13} <= qs
+    assert any(a >= q for _, q, a in moduli if q > 2**32)             # a read modulo q
+    assert any(a == q - 1 for _, q, a in moduli if q > 2**32)
+    assert any(q > x for x, q, _ in moduli)
+    # kept whole by the heavy caps: their size is x, not the modulus
+    assert roles.get("prime_pi_mod").magnitude((1000003, 2**64 + 13, 1)) == 1000003
+
+
+def test_prime_pi_mod_moduli_triples_agree_with_sympy():
+    """The oracle at a sample of the moduli triples, against a count over sympy's primes."""
+    import random as _random
+
+    primes = list(sympy.primerange(2, 1000004))
+    triples = _families.moduli(2**40, None, None)
+    for x, q, a in _random.Random(5).sample(triples, 25) + [(1000003, 2**32 + 1, 1),
+                                                              (1000003, 2**64 + 13, 999983)]:
+        expected = sum(1 for p in primes if p <= x and p % q == a % q)
+        assert facade.prime_pi_mod(x, q, a) == expected, (x, q, a)
+    assert facade.prime_pi_mod(1000003, 2**64 + 13, 999983 + 2**64 + 13) == 1
 
 
 # OEIS A050258, prime quadruplets with largest member < 10^n, n = 1..10 (8 checked here), read on 2026-12-03 with

@@ -35,6 +35,7 @@ import pytest
 import sympy
 import yaml
 
+from _lucy import prime_sum_by_lucy
 from _references import OPTIONAL, flint, primecountpy, skip_unless_installed
 
 TESTS_DIR = Path(__file__).resolve().parent
@@ -77,8 +78,16 @@ def entries(*, defective: bool, python: bool | None = None, kind: str | None = N
             continue
         if kind is not None and entry.get("kind") != kind:
             continue
-        chosen.append(pytest.param(entry, id=entry["id"]))
+        chosen.append(pytest.param(entry, id=entry["id"], marks=_marks(entry)))
     return chosen
+
+
+def _marks(entry) -> list:
+    """slow for a member whose witness or ordinary input is a prime sum above the sieve of
+    this file (its reference is the Lucy_Hedgehog computation below, seconds at 10^10)."""
+    points = [entry.get("witness"), entry.get("ordinary")]
+    large = any(isinstance(x, int) and x > LARGE_SIEVE_LIMIT for x in points)
+    return [pytest.mark.slow] if entry["role"] == "prime_sum" and large else []
 
 
 def import_member(module_name: str):
@@ -160,7 +169,7 @@ def reference_prime_sum(x: int) -> int:
         return int(PRIME_SUMS[x])
     if x <= LARGE_SIEVE_LIMIT:
         return int(_cumulative_prime_sums(x)[-1])
-    raise AssertionError(f"prime_sum reference sieve ends at {LARGE_SIEVE_LIMIT}, asked {x}")
+    return prime_sum_by_lucy(x)
 
 
 def _mobius_by_sieve(limit: int) -> np.ndarray:
@@ -460,6 +469,7 @@ SECOND_REFERENCE = {
     "prime_pi_chatty": lambda x: int(primecountpy.prime_pi(x)) if x >= 2 else 0,
     "factor_sympy": reference_factor,
     "prime_sum_sympy": reference_prime_sum,
+    "prime_sum_lucy_exact": reference_prime_sum,
     "prime_pi_mod_sympy": reference_prime_pi_mod,
     "mertens_sympy": reference_mertens,
     "squarefree_count_sympy": reference_squarefree_count,
@@ -834,3 +844,12 @@ def test_correct_executable_member_agrees_at_thousands_of_points(entry):
     check = SECOND_REFERENCE[entry["id"]]
     for point, got in zip(points, exec_answers(entry, points)):
         assert got == call(check, role, point), (entry["id"], point)
+
+
+@pytest.mark.slow
+def test_prime_sum_by_lucy_agrees_with_oeis_a046731():
+    """The large-x reference of the prime_sum members against OEIS A046731 (the sum of the
+    primes below 10^n) and the sieve of this file."""
+    assert prime_sum_by_lucy(10**8 - 3) == reference_prime_sum(10**8 - 3)
+    assert prime_sum_by_lucy(10**9) == 24739512092254535     # OEIS A046731, n = 9 (value from memory)
+    assert prime_sum_by_lucy(10**10) == 2220822432581729238  # OEIS A046731, n = 10 (value from memory)

@@ -355,8 +355,8 @@ class _Run:
         """Why a point is not to be asked, or None."""
         if over_budget:
             return "time budget spent"
-        size = max(arguments)
-        if self.options.maximum is not None and size > self.options.maximum:
+        size = self.role.magnitude(arguments)      # the size a call's cost follows
+        if self.options.maximum is not None and max(arguments) > self.options.maximum:
             return "above the declared domain (--max)"
         if len(self.timed_out_sizes) >= TIMEOUTS_BEFORE_SKIPPING and size >= min(self.timed_out_sizes):
             return "at least as large as inputs that timed out"

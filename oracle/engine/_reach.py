@@ -21,6 +21,22 @@ in increasing size, with two families:
     oracle's cheap sieve, so π₂ has no such steps here (the sampled
     ``twin-answer-words`` go up to 2^16).
 
+The sums up to x (``prime_sum``, ``mertens``, ``squarefree_count``,
+``triplet_pi_026``, ``triplet_pi_046``, ``quadruplet_pi``; :data:`SUM_ROLES`) climb
+the same way, with no published table: ``climb-tables`` asks the round points
+10^k ± 1 and 2^k ± 1 (the oracle answers the middle one by its cheapest route
+-- the combinatorial sum of the primes up to 2⁴⁷, the Möbius identity for Q(x),
+primesieve's constellation count -- and its neighbours from it by a sieve of a few
+integers, :class:`oracle.roles._sums.KnownSums`); ``climb-answer-words`` asks
+x − 1 and x where the answer steps over a word (the sum of the primes passes
+2^w at the primes of :data:`oracle.sampling._families.PRIME_SUM_WORDS`, w up to 64;
+Q(x) passes 2^31 and 2^32 at :data:`oracle.sampling._families.SQUAREFREE_WORDS`),
+and, for every sum role, the least x where x·x or x·(x + 1)/2 passes 2⁶³ or 2⁶⁴
+(:func:`oracle.sampling._families.intermediate_words`), where a candidate that
+forms such a product in a 64-bit word goes wrong although its answer fits.
+``prime_pi_mod`` does not climb: its oracle sieves [0, x] (about 5 ns an integer),
+so its sampled ceiling near 2³² is already the end of the oracle's budget.
+
 Before each step the cost is estimated, never just tried: the candidate's time
 per call is projected from the calls already made (:mod:`oracle.engine._speed`)
 and must stay within :data:`CALL_SHARE` of the per-call timeout; the oracle's
@@ -41,10 +57,12 @@ ends the climb: the localisation (bisection) takes it from there.
 
 from __future__ import annotations
 
+import math
 import random
 
 from .. import facade, tables
-from ..sampling._families import PRIME_AT_POWER_OF_TWO
+from ..sampling._families import (PRIME_AT_POWER_OF_TWO, PRIME_SUM_WORDS, SQUAREFREE_WORDS,
+                                  intermediate_words)
 
 __all__ = ["climb", "CLIMB_FAMILIES", "STOP_REASONS", "oracle_seconds", "CALL_SHARE", "stop_reason"]
 
@@ -61,6 +79,13 @@ STOP_REASONS = (CANDIDATE_SPEED, ORACLE_BUDGET, DECLARED_DOMAIN, TIME_BUDGET, AF
 _FOR_EVERY_LARGER_STEP = (CANDIDATE_SPEED, DECLARED_DOMAIN, AFTER_FAILURES)
 #: The oracle's function of each role that climbs, as named by :mod:`oracle.tables`.
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime"}
+#: The sums up to x that climb (at round points instead of table points), with the kind of
+#: constellation the oracle counts for the tuplet roles.
+SUM_ROLES = {"prime_sum": None, "mertens": None, "squarefree_count": None,
+             "triplet_pi_026": "triplets_026", "triplet_pi_046": "triplets_046",
+             "quadruplet_pi": "quadruplets"}
+#: Largest round point of the sums' climb (their oracle works below 2⁶⁴).
+SUM_TOP = 2**64
 #: Largest share of the per-call timeout a projected call may take (a call that then
 #: times out on a loaded machine is asked again with a longer limit, see
 #: :mod:`oracle.engine._timeouts`).
@@ -83,6 +108,8 @@ OFFSETS = (-1, 0, 1)
 
 def oracle_seconds(role_name: str, x: int, budget: float) -> float:
     """The oracle's estimated seconds for the exact reference at ``x`` (inf: no route)."""
+    if role_name in SUM_ROLES:
+        return _sum_oracle_seconds(role_name, x, budget)
     if role_name == "nth_prime":
         x = facade._nth_prime_upper_bound(x)      # p_n is judged through π(p_n) = n
     if role_name in ("prime_pi", "nth_prime"):
@@ -95,9 +122,40 @@ def oracle_seconds(role_name: str, x: int, budget: float) -> float:
     return min((route.seconds for route in routes if route is not None), default=float("inf"))
 
 
+def _sum_oracle_seconds(role_name: str, x: int, budget: float) -> float:
+    """The oracle's estimated seconds for a sum up to ``x`` by its cheapest exact route (the
+    same estimates :mod:`oracle.facade` uses to choose or refuse a route)."""
+    if x >= SUM_TOP:
+        return float("inf")
+    if role_name == "squarefree_count":
+        if x >= facade._SQUAREFREE_LIMIT:
+            return float("inf")
+        return (math.isqrt(x) + 1) * facade._MOBIUS_SECONDS_PER_INTEGER
+    kind = SUM_ROLES[role_name]
+    if kind is not None:
+        route = facade._route_by_sieve(kind, x, budget)
+        return float("inf") if route is None else route.seconds
+    seconds = facade._summatory_seconds(role_name, 0, x)
+    seconds = float("inf") if seconds is None else seconds
+    if role_name == "prime_sum":
+        from ..exact import prime_sum_combinatorial as combinatorial
+
+        if x <= combinatorial.MAX_X:
+            seconds = min(seconds, combinatorial.estimated_seconds(x))
+    return seconds
+
+
+def _round_points() -> list[int]:
+    """10^k and 2^k below :data:`SUM_TOP`: the sums' table steps."""
+    return sorted({10**k for k in range(1, 20)} | {2**k for k in range(4, 64)})
+
+
 def _steps(role_name: str, start: int, rng: random.Random) -> list[tuple[int, str, list[int]]]:
     """(size, family, inputs) above ``start``, in increasing size."""
-    points = sorted(x for x in tables.values(TABLE_FUNCTIONS[role_name]) if x > start + 1)
+    if role_name in SUM_ROLES:
+        points = [x for x in _round_points() if x > start + 1]
+    else:
+        points = sorted(x for x in tables.values(TABLE_FUNCTIONS[role_name]) if x > start + 1)
     steps = [(b + 1, CLIMB_TABLES, [b + d for d in OFFSETS]) for b in points]
     top = points[-1] if points else start
     for j in range(max(start, 1).bit_length() - 1, top.bit_length() - 1):
@@ -117,6 +175,10 @@ def _answer_word_steps(role_name: str, start: int) -> list[tuple[int, str, list[
         counts = [count for x, (count, _source) in tables.values("pi").items()
                   if x & (x - 1) == 0]
         crossings = [[count, count + 1] for count in counts]
+    elif role_name in SUM_ROLES:
+        words = {"prime_sum": PRIME_SUM_WORDS, "squarefree_count": SQUAREFREE_WORDS}
+        crossings = [[x - 1, x] for x in words.get(role_name, {}).values()]
+        crossings += [[x - 1, x] for x in intermediate_words()]
     else:
         return []
     return [(max(inputs), CLIMB_ANSWERS, inputs) for inputs in sorted(crossings)
@@ -126,7 +188,7 @@ def _answer_word_steps(role_name: str, start: int) -> list[tuple[int, str, list[
 def climb(run, seed: int) -> None:
     """Ask the climbing points of a counting role (``run`` is the engine's :class:`_Run`)."""
     role = run.role
-    if role.name not in TABLE_FUNCTIONS:
+    if role.name not in TABLE_FUNCTIONS and role.name not in SUM_ROLES:
         return
     start = run.speed.largest()
     if start is None:

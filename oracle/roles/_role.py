@@ -128,8 +128,13 @@ class Role:
     relations: Callable[[dict, Conventions, float | None], list] | None = None
     families: tuple[str, ...] = field(default=())
     memory: Callable[[], object] | None = None
+    #: The argument whose size the cost of a call follows (None: the largest argument); for
+    #: prime_pi_mod(x, q, a) it is x, whatever the modulus.
+    size_argument: int | None = None
 
     def magnitude(self, arguments: Sequence[int]) -> int:
+        if self.size_argument is not None:
+            return arguments[self.size_argument]
         return max(arguments)
 
 

@@ -15,5 +15,5 @@ ROLE = Role(
     normalise=normalise_sum, judge=sum_judge("mertens", non_negative=False),
     relations=sum_relations("mertens", monotone=False), memory=sum_memory("mertens"),
     families=("exhaustive", "boundaries", "squares", "segments", "uniform", "log-uniform",
-              "prime-powers"),
+              "prime-powers", "product-words"),
 )

@@ -21,5 +21,6 @@ ROLE = Role(
     invalid_inputs=((100, 0, 1), (100, 4, 2), (100, 6, 3), (100, 10, 0)),
     relations=sum_relations("prime_pi_mod", monotone=True), memory=sum_memory("prime_pi_mod"),
     families=("exhaustive", "boundaries", "primes", "segments", "uniform", "log-uniform",
-              "sieve-seams"),
+              "sieve-seams", "moduli"),
+    size_argument=0,
 )

@@ -16,5 +16,5 @@ ROLE = Role(
     normalise=normalise_sum, judge=sum_judge("prime_sum"),
     relations=sum_relations("prime_sum", monotone=True), memory=sum_memory("prime_sum"),
     families=("exhaustive", "boundaries", "primes", "segments", "uniform", "log-uniform",
-              "sum-words", "prime-powers", "sieve-seams"),
+              "sum-words", "prime-powers", "sieve-seams", "product-words"),
 )

@@ -17,5 +17,5 @@ ROLE = Role(
     normalise=normalise_sum, judge=sum_judge("quadruplets"),
     relations=sum_relations("quadruplets", monotone=True), memory=sum_memory("quadruplets"),
     families=("exhaustive", "boundaries", "twins", "segments", "uniform", "log-uniform",
-              "sieve-seams"),
+              "sieve-seams", "product-words"),
 )

@@ -15,5 +15,5 @@ ROLE = Role(
     normalise=normalise_sum, judge=sum_judge("squarefree_count"),
     relations=sum_relations("squarefree_count", monotone=True),
     families=("exhaustive", "boundaries", "squares", "square-steps", "segments", "uniform",
-              "log-uniform", "prime-powers"),
+              "log-uniform", "prime-powers", "product-words"),
 )

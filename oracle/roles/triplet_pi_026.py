@@ -17,5 +17,5 @@ ROLE = Role(
     normalise=normalise_sum, judge=sum_judge("triplets_026"),
     relations=sum_relations("triplets_026", monotone=True), memory=sum_memory("triplets_026"),
     families=("exhaustive", "boundaries", "twins", "segments", "uniform", "log-uniform",
-              "sieve-seams"),
+              "sieve-seams", "product-words"),
 )

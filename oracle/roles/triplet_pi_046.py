@@ -17,5 +17,5 @@ ROLE = Role(
     normalise=normalise_sum, judge=sum_judge("triplets_046"),
     relations=sum_relations("triplets_046", monotone=True), memory=sum_memory("triplets_046"),
     families=("exhaustive", "boundaries", "twins", "segments", "uniform", "log-uniform",
-              "sieve-seams"),
+              "sieve-seams", "product-words"),
 )

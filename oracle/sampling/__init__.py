@@ -68,19 +68,21 @@ def sample(role: Role, chosen: Profile, seed: int) -> list[Sample]:
                 found.append(Sample(name, arguments))
     if role.name in HEAVY:
         budget = (chosen.heavy_budget or {}).get(role.name)
-        found = _thin_heavy(found, role.name, chosen.heavy_points, budget)
+        found = _thin_heavy(found, role, chosen.heavy_points, budget)
     return found
 
 
-def _thin_heavy(found: list[Sample], role_name: str, keep: int, budget: int | None) -> list[Sample]:
+def _thin_heavy(found: list[Sample], role: Role, keep: int, budget: int | None) -> list[Sample]:
     """Keep at most ``keep`` points above the role's :data:`HEAVY` threshold, of total
     :func:`heavy_cost` at most ``budget``, taking them in turn from each family, largest
     first (word-size wraps show at the top of the range); a point too costly for what is
-    left of the budget gives way to the next one."""
+    left of the budget gives way to the next one.  A point's size is the role's
+    magnitude (x for prime_pi_mod, whatever its modulus)."""
+    role_name, size = role.name, role.magnitude
     threshold = HEAVY[role_name]
-    heavy = [s for s in found if max(s.arguments) > threshold]
+    heavy = [s for s in found if size(s.arguments) > threshold]
     by_family: dict[str, list[Sample]] = {}
-    for s in sorted(heavy, key=lambda s: (max(s.arguments), s.arguments), reverse=True):
+    for s in sorted(heavy, key=lambda s: (size(s.arguments), s.arguments), reverse=True):
         by_family.setdefault(s.family, []).append(s)
     left = budget
     kept: set[Sample] = set()
@@ -89,17 +91,19 @@ def _thin_heavy(found: list[Sample], role_name: str, keep: int, budget: int | No
             if not queue or len(kept) >= keep:
                 continue
             s = queue.pop(0)
-            cost = heavy_cost(role_name, max(s.arguments))
+            cost = heavy_cost(role_name, size(s.arguments))
             if left is None or cost <= left:
                 kept.add(s)
                 left = None if left is None else left - cost
-    return [s for s in found if max(s.arguments) <= threshold or s in kept]
+    return [s for s in found if size(s.arguments) <= threshold or s in kept]
 
 
 #: Progressions (q, a) of prime_pi_mod: q = 1 (all primes), every reduced class of the
 #: small moduli, classes given by an a ≥ q (read modulo q), and moduli around 2¹⁶ (common
-#: practice: a table of classes sized for small q).  Every q stays far below the sampled x,
-#: so an input's size, max(x, q, a), is x (the audit's ``--max`` and heavy caps read it so).
+#: practice: a table of classes sized for small q).  The large moduli (q near 2³¹, 2³² and
+#: above, q > x) come as whole triples from the ``moduli`` family
+#: (:func:`oracle.sampling._families.moduli`); the size of a triple is x (the role's
+#: magnitude, which the speed model and the heavy caps read), ``--max`` bounds every argument.
 PROGRESSIONS = tuple(
     [(1, 0)] + [(q, a) for q in (2, 3, 4, 5, 6, 8, 10, 12) for a in range(q) if _gcd(a, q) == 1]
     + [(4, 5), (3, 7), (10, 13), (30, 7), (30, 11), (210, 11), (65536, 1), (65537, 3)])
@@ -110,6 +114,8 @@ _ALL_CLASSES_BELOW = 60
 def _progressions(name: str, values: list[int], chosen: Profile, rng) -> list[tuple[int, int, int]]:
     """Triples (x, q, a) from one family's integers: small x in every small class, then each
     x in two classes drawn from :data:`PROGRESSIONS`."""
+    if values and isinstance(values[0], tuple):
+        return list(values)         # a family of triples (x, q, a) keeps them
     found = []
     for x in values:
         if name == "exhaustive" and x <= _ALL_CLASSES_BELOW:

@@ -253,9 +253,47 @@ def twin_answer_words(ceiling, profile, rng) -> list[int]:
 
 
 #: The least prime p with p₁ + ... + p ≥ 2^w, for the word sizes w where a sum of primes kept
-#: in a machine word or a double goes wrong (computed with the oracle's sieve; tests compare
-#: with sympy up to w = 32 and with primesieve for w = 53).
-PRIME_SUM_WORDS = {15: 631, 16: 929, 31: 225287, 32: 323381, 53: 595600673}
+#: in a machine word or a double goes wrong (computed with the oracle's sieve, and for w = 63,
+#: 64 with its combinatorial sum near p and its sieve up to p; tests compare with sympy up to
+#: w = 32 and with primesieve for w = 53, 63, 64).  Above the sampled ceilings the climb asks
+#: them (:mod:`oracle.engine._reach`).
+PRIME_SUM_WORDS = {15: 631, 16: 929, 31: 225287, 32: 323381, 53: 595600673,
+                   63: 20706267151, 64: 29505444491}
+#: The least x with Q(x) ≥ 2^w (Q the squarefree count; the x is itself squarefree), where a
+#: squarefree count kept in an int32 or uint32 wraps (computed by bisection on the oracle's
+#: Möbius identity; tests compare with the identity over sympy's μ).
+SQUAREFREE_WORDS = {31: 3532469249, 32: 7064938121}
+#: Word sizes of the intermediate products of :func:`intermediate_words`.
+PRODUCT_WORDS = (63, 64)
+
+
+def _least_at_least(f, bound: int) -> int:
+    """The least x ≥ 1 with f(x) ≥ bound, for a non-decreasing f (by bisection)."""
+    low, high = 1, 1
+    while f(high) < bound:
+        high *= 2
+    while low < high:
+        middle = (low + high) // 2
+        low, high = (low, middle) if f(middle) >= bound else (middle + 1, high)
+    return low
+
+
+def intermediate_words() -> list[int]:
+    """The least x where x·x and x·(x + 1)/2 reach 2⁶³ and 2⁶⁴ (3037000500, 4294967296 and
+    6074001000): a sum up to x that forms x², or the sum 1 + ... + x = x(x + 1)/2 that
+    Legendre- and Lucy-type methods start from, in a signed or unsigned 64-bit word goes
+    wrong from there on, although the answer itself fits the word (common practice)."""
+    found = set()
+    for w in PRODUCT_WORDS:
+        found.add(_least_at_least(lambda x: x * x, 2**w))
+        found.add(_least_at_least(lambda x: x * (x + 1) // 2, 2**w))
+    return sorted(found)
+
+
+def product_words(ceiling, profile, rng) -> list[int]:
+    """x − 1, x, x + 1 for the x of :func:`intermediate_words` (those above the ceiling are
+    the climb's, :mod:`oracle.engine._reach`)."""
+    return _below((x + d for x in intermediate_words() for d in (-1, 0, 1)), ceiling)
 
 
 def sum_words(ceiling, profile, rng) -> list[int]:
@@ -533,6 +571,43 @@ def constructed(ceiling, profile, rng) -> list[int]:
     return _below(found, ceiling)
 
 
+#: Moduli of :func:`moduli` (common practice: a modulus kept in a uint16, int32 or uint32
+#: word, or in a double): around 2¹⁶, 2³¹ and 2³² (each ± 1, the primes nearest), just above
+#: 2³² (read modulo 2³² as 1, 3, 15: a small modulus with many primes in its classes), 2³³,
+#: 2⁴⁰, 2⁵³ (a double's mantissa) and 2⁶³, 2⁶⁴ (a signed or unsigned 64-bit word).
+LARGE_MODULI = (65521, 65535, 65536, 65537, 2**31 - 1, 2**31, 2**31 + 1, 2147483659,
+                2**32 - 5, 2**32 - 1, 2**32, 2**32 + 1, 2**32 + 3, 4294967311, 2**32 + 15,
+                2**33 + 1, 2**40 + 15, 2**53 + 1, 2**63 - 1, 2**63 + 1, 2**64 - 59, 2**64 + 1,
+                2**64 + 13)
+#: x of the moduli triples: a prime (the class of a = x holds exactly one prime up to x when
+#: q > x), and the cost of one call stays small (the oracle sieves [0, x] once per class).
+MODULI_X = (1000003,)
+
+
+def moduli(ceiling, profile, rng) -> list[tuple[int, int, int]]:
+    """Triples (x, q, a) of prime_pi_mod with the large moduli of :data:`LARGE_MODULI`, for
+    each x of :data:`MODULI_X`: a = 1, a = q − 1, a = p (the largest prime ≤ x prime to q),
+    a = p + q and a = p + 2q (an a ≥ q is read modulo q), and a = q + 1; with q > x the
+    answer is 1 for the classes of p and 0 for the others, so a modulus cut to 16, 31 or 32
+    bits (or rounded through a double), or an a not reduced modulo a large q, gives a count
+    of many primes instead.  Also q = x + 1 and q = x − 1 with a = x, x + q (q next to x)."""
+    from ..exact.primality import prev_prime
+
+    found = set()
+    for x in MODULI_X:
+        if x > ceiling:
+            continue
+        moduli_here = list(LARGE_MODULI) + [x - 1, x + 1]
+        for q in moduli_here:
+            p = prev_prime(x + 1)
+            while math.gcd(p, q) != 1:
+                p = prev_prime(p)
+            for a in (1, q - 1, p, p + q, p + 2 * q, q + 1, x, x + q):
+                if a >= 0 and math.gcd(a, q) == 1:
+                    found.add((x, q, a))
+    return sorted(found)
+
+
 def uniform(ceiling, profile, rng) -> list[int]:
     return [rng.randrange(0, ceiling + 1) for _ in range(profile.random_points)]
 
@@ -558,6 +633,8 @@ FAMILIES = {
     "constructed": constructed,
 }
 FAMILIES["sum-words"] = sum_words
+FAMILIES["moduli"] = moduli
+FAMILIES["product-words"] = product_words
 FAMILIES["square-steps"] = square_steps
 
 TABLE_FUNCTIONS = {"prime_pi": "pi", "twin_pi": "twin_pi", "nth_prime": "nth_prime",

@@ -1,6 +1,7 @@
 """Audit profiles: how many points, how far up, how long.
 
-``ceilings`` caps the argument size per role: a fast correct candidate must
+``ceilings`` caps the argument size per role (the role's magnitude: x for
+prime_pi_mod(x, q, a), whose sampled moduli go above it): a fast correct candidate must
 answer every sampled point within the profile's time (ci: ≤ 60 s per role on
 2 cores), so counting roles, whose candidates sieve up to x, stop lower than
 primality roles, whose candidates cost little at any size.  Every ceiling still
