@@ -40,7 +40,7 @@ import pytest
 import yaml
 
 from _references import OPTIONAL, skip_unless_installed
-from oracle import InvalidInputError, engine, targets
+from oracle import InvalidInputError, engine, roles, targets
 
 CATALOGUE = Path(__file__).parent / "zoo" / "catalogue.yaml"
 ROOT = Path(__file__).parent.parent
@@ -114,18 +114,21 @@ def full_run(member) -> bool:
     return _id(member) not in _default_run(MEMBERS)
 
 
-def _magnitude(arguments):
-    """The size of an input (the larger end of an interval), as the audit orders inputs."""
-    return max(arguments) if isinstance(arguments, (list, tuple)) else arguments
+def _magnitude(arguments, role: str):
+    """The size of an input as the audit orders inputs: the role's size argument (x of
+    prime_pi_mod(x, q, a)), else the largest argument (the larger end of an interval)."""
+    if not isinstance(arguments, (list, tuple)):
+        return arguments
+    return roles.get(role).magnitude(arguments)
 
 
-def first_failing_input(summary: dict, statuses) -> list | None:
+def first_failing_input(summary: dict, statuses, role: str) -> list | None:
     """The summary's first divergence, else the smallest input among findings of ``statuses``."""
     divergence = summary.get("first_divergence") or {}
     if divergence.get("input") is not None:
         return divergence["input"]
     inputs = [f["arguments"] for f in summary["failures"] if f["status"] in statuses]
-    return min(inputs, key=lambda a: (_magnitude(a), a), default=None)
+    return min(inputs, key=lambda a: (_magnitude(a, role), a), default=None)
 
 
 def report_problems(member: dict, summary: dict) -> list[str]:
@@ -134,9 +137,9 @@ def report_problems(member: dict, summary: dict) -> list[str]:
     found = sorted({f["status"] for f in summary["failures"]})
     if not set(statuses) & set(found):
         return [f"kind {member['kind']} should show as {' or '.join(statuses)}; the findings are {found}"]
-    first = first_failing_input(summary, statuses)
+    first = first_failing_input(summary, statuses, member["role"])
     witness = member["witness"]
-    if first is None or _magnitude(first) > _magnitude(witness):
+    if first is None or _magnitude(first, member["role"]) > _magnitude(witness, member["role"]):
         return [f"first failing input {first} lies above the witness {witness}"]
     return []
 

@@ -736,13 +736,25 @@ def test_session_summary_counts_points_not_run(settings_project):
 
 # -- unique item ids and reproduce lines that reproduce (issue 12, item 3) ----------- #
 
+def _report_lines(result) -> list[str]:
+    """The session's output before pytest's short summary: with the CI variable set (as
+    on a CI runner) pytest repeats each failure's whole message there."""
+    lines = []
+    for line in result.outlines:
+        if "short test summary info" in line:
+            break
+        lines.append(line)
+    return lines
+
+
 def _reproduce_lines(result) -> list[str]:
-    return [line.removeprefix("reproduce: ") for line in result.outlines if line.startswith("reproduce: ")]
+    return [line.removeprefix("reproduce: ") for line in _report_lines(result)
+            if line.startswith("reproduce: ")]
 
 
 def _failure_text(result) -> list[str]:
     """The lines of the failure messages (input, got, expected, provenance), without timings."""
-    return [line for line in result.outlines
+    return [line for line in _report_lines(result)
             if (line.startswith("ntoracle: ") and " failed " in line) or line.startswith(("    input:", "    got:", "    expected:", "    provenance:",
                                 "is_prime(", "prime_pi(", "primes_in(", "reproduce: "))]
 
