@@ -94,6 +94,10 @@ def primes_in_drops_first(a, b):      # loses a when a is prime (exclusive lower
     return [p for p in primesieve.primes(a, b) if p != a] if b >= a else []
 
 
+def primes_in_odd_only(a, b):         # an odd-only sieve without the special case: 2 is lost
+    return [p for p in primesieve.primes(a, b) if p != 2] if b >= a else []
+
+
 def primes_in_duplicates(a, b):       # repeats the prime at a segment join
     found = list(primesieve.primes(a, b)) if b >= a else []
     return found + [p for p in found if p == 65537]

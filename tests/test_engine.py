@@ -81,6 +81,14 @@ def test_primes_in_first_missing_prime(tmp_path):
     assert divergence["kind"] == "first missing prime" and divergence["prime"] == 2
 
 
+def test_primes_in_first_missing_prime_shown_in_the_narrowest_range_that_loses_it(tmp_path):
+    summary = audit("_candidates:primes_in_odd_only", "primes_in", tmp_path, maximum=10**6)
+    divergence = summary["first_divergence"]
+    losing_two = [f["arguments"] for f in summary["failures"] if f["status"] == "wrong"]
+    assert divergence["prime"] == 2 and len(losing_two) > 1
+    assert divergence["input"] == min(losing_two, key=lambda a: (a[1] - a[0], a[1]))
+
+
 def test_factor_losing_multiplicity(tmp_path):
     summary = audit("_candidates:factor_set", "factor", tmp_path, maximum=10**6)
     assert summary["first_divergence"]["input"] == [4]

@@ -35,7 +35,8 @@ The order of work:
    to go wrong at some x is caught at that x; if it goes right again in
    between, bisection still ends at an adjacent agree/disagree pair, but not
    necessarily the smallest); for primes_in the smallest missing or extra
-   prime; for the others the smallest failing input;
+   prime, shown in the narrowest range asked that has it wrong; for the
+   others the smallest failing input;
 6. failures go to the regression corpus -- also when the run is interrupted
    (any exception, Ctrl-C included): the stream then gets an ``interrupted``
    record and :class:`AuditInterrupted` (a ``KeyboardInterrupt``) carries the
@@ -512,13 +513,17 @@ class _Run:
             verdict = self.verdicts.get(arguments)
             found = first_wrong_prime(self.answers.get(arguments, record["got"]),
                                       verdict.expected if verdict is not None else record["expected"])
-            if found is not None and (best is None or found[1] < best[0][1]):
-                best = (found, record)
+            if found is None:
+                continue
+            low, high = record["arguments"]
+            rank = (found[1], high - low, high)     # the smallest prime, shown in the narrowest
+            if best is None or rank < best[0]:      # range asked that loses it
+                best = (rank, found, record)
         if best is None:
             smallest = min(wrong, key=lambda r: (self.role.magnitude(r["arguments"]), r["arguments"]))
             return {"kind": "smallest failing input", "input": smallest["arguments"],
                     "status": smallest["status"], "detail": smallest["detail"]}
-        (kind, prime), record = best
+        _, (kind, prime), record = best
         return {"kind": f"first {kind} prime", "prime": prime, "input": record["arguments"],
                 "provenance": record["provenance"], "detail": record["detail"]}
 
