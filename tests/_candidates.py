@@ -131,3 +131,13 @@ def nth_prime_hangs_at_zero(n):       # no guard for n < 1: the search never end
     while n < 1:
         time.sleep(0.01)
     return primesieve.nth_prime(n)
+
+
+def next_prime_mpz(n):                 # correct, answers as gmpy2 integers (which have a len())
+    import gmpy2
+    return gmpy2.next_prime(n)
+
+
+def factor_mpz_pairs(n):               # correct, (mpz, int) pairs
+    import gmpy2
+    return [(gmpy2.mpz(p), e) for p, e in sorted(sympy.factorint(n).items())]

@@ -72,6 +72,23 @@ def test_isolated_python_target_keeps_types_and_contains_a_crash():
         target.close()
 
 
+@pytest.mark.parametrize("spec, role, arguments, expected", [
+    ("_candidates:next_prime_mpz", "next_prime", (97,), 101),
+    ("_candidates:factor_mpz_pairs", "factor", (360,), ((2, 3), (3, 2), (5, 1))),   # 360 = 2^3 3^2 5
+])
+def test_isolated_worker_carries_gmpy2_integers_as_integers(spec, role, arguments, expected):
+    """gmpy2's mpz has a len(); it is an integer all the same (it was read as a wrong type)."""
+    from oracle import roles
+
+    target = targets.python_target(spec, role_name=role, timeout=5, isolate=True)
+    try:
+        result = target.call_many([arguments])[0]
+    finally:
+        target.close()
+    assert result.status == "ok"
+    assert roles.get(role).normalise(result.value, roles.Conventions()) == expected
+
+
 def test_isolated_target_memory_limit_turns_exhaustion_into_a_finding():
     target = targets.python_target("builtins:bytearray", role_name="prime_pi", timeout=5,
                                    isolate=True, memory_limit=512 * 2**20)
