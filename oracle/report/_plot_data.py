@@ -178,7 +178,7 @@ def _envelope_point(proven_interval, record: dict) -> EnvelopePoint | None:
     else:
         try:
             interval = proven_interval(x)
-        except OracleError:
+        except (OracleError, ArithmeticError):     # no enclosure of a bound at this x: no point
             return None
         lower, upper = interval.lower, interval.upper
     if lower is None or upper is None:
