@@ -5,7 +5,7 @@ import textwrap
 
 import pytest
 
-from oracle import InvalidInputError, targets
+from oracle import InvalidInputError, roles, targets
 
 EXEC_PI = textwrap.dedent("""
     import sys, sympy
@@ -78,8 +78,6 @@ def test_isolated_python_target_keeps_types_and_contains_a_crash():
 ])
 def test_isolated_worker_carries_gmpy2_integers_as_integers(spec, role, arguments, expected):
     """gmpy2's mpz has a len(); it is an integer all the same (it was read as a wrong type)."""
-    from oracle import roles
-
     target = targets.python_target(spec, role_name=role, timeout=5, isolate=True)
     try:
         result = target.call_many([arguments])[0]

@@ -177,8 +177,9 @@ def encode_value(value: object, depth: int = 0) -> object:
         return {"dict": [[encode_value(k, depth + 1), encode_value(v, depth + 1)] for k, v in value.items()]}
     if type(value).__name__ == "bool_":
         return bool(value)
-    if hasattr(value, "__index__") and not hasattr(value, "shape"):   # gmpy2's mpz (which has a
-        return encode_value(bounded_answer(int(value.__index__())), depth + 1)   # len), fmpz
+    # an integer type: gmpy2's mpz (which has a len()), flint's fmpz, numpy's scalars come next
+    if hasattr(value, "__index__") and not hasattr(value, "shape"):
+        return encode_value(bounded_answer(int(value.__index__())), depth + 1)
     if hasattr(value, "dtype") and getattr(value, "shape", None) == ():
         return encode_value(bounded_answer(value.item()), depth + 1)
     if isinstance(value, float) or type(value).__name__.startswith("float"):
